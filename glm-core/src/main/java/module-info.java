@@ -1,0 +1,13 @@
+/**
+ * Tables, model specifications, design matrices, the IRLS fit, fitted models and scoring.
+ *
+ * @since 0.1
+ */
+module dev.reweigh.core {
+    requires transitive dev.reweigh.families;
+    requires ejml.core;
+    requires ejml.ddense;
+    requires com.fasterxml.jackson.core;
+
+    exports dev.reweigh.core;
+}

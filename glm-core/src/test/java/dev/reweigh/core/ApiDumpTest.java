@@ -1,0 +1,11 @@
+package dev.reweigh.core;
+
+import dev.reweigh.apidump.ApiDump;
+import org.junit.jupiter.api.Test;
+
+class ApiDumpTest {
+    @Test
+    void publicApiMatchesCommittedDump() throws Exception {
+        ApiDump.verify();
+    }
+}
