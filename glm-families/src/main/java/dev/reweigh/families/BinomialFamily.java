@@ -1,0 +1,135 @@
+package dev.reweigh.families;
+
+import org.apache.commons.math3.special.Beta;
+
+/**
+ * Proportion of successes out of w trials, w being the prior weight. When w is a whole number the
+ * count w y must be one too (within a relative 1e-7); fractional weights only require y in [0, 1].
+ */
+final class BinomialFamily extends AbstractFamily {
+    static final BinomialFamily INSTANCE = new BinomialFamily();
+
+    private BinomialFamily() {
+        super("binomial");
+    }
+
+    @Override
+    String varianceText() {
+        return "mu(1-mu)";
+    }
+
+    @Override
+    public double variance(double mu) {
+        return mu * (1.0 - mu);
+    }
+
+    @Override
+    public double unitDeviance(double y, double mu) {
+        return deviance(y, mu);
+    }
+
+    static double deviance(double y, double mu) {
+        if (y == 0.0) {
+            return -2.0 * Math.log1p(-mu);
+        }
+        if (y == 1.0) {
+            return -2.0 * Math.log(mu);
+        }
+        return 2.0 * (ProbabilityMath.bd0(y, mu) + ProbabilityMath.bd0(1.0 - y, 1.0 - mu));
+    }
+
+    @Override
+    public boolean isValidResponse(double y, double priorWeight) {
+        if (!(y >= 0.0 && y <= 1.0)) {
+            return false;
+        }
+        return !isWhole(priorWeight) || isWhole(y * priorWeight);
+    }
+
+    @Override
+    public String responseDomain() {
+        return "a proportion in [0, 1] whose product with the prior weight (the number of trials) is a whole number";
+    }
+
+    @Override
+    public boolean isValidMean(double mu) {
+        return mu > 0.0 && mu < 1.0;
+    }
+
+    @Override
+    public String meanDomain() {
+        return "a probability strictly between 0 and 1";
+    }
+
+    @Override
+    public double startingMean(double y, double priorWeight) {
+        return (priorWeight * y + 0.5) / (priorWeight + 1.0);
+    }
+
+    @Override
+    public boolean hasDensity() {
+        return true;
+    }
+
+    /** Number of successes out of n trials, rounded when it is whole within tolerance. */
+    private static double successes(double y, double trials) {
+        double x = y * trials;
+        double whole = nearestWhole(x);
+        return Double.isNaN(whole) ? x : whole;
+    }
+
+    @Override
+    public double logDensity(double y, double mu, double dispersion, double priorWeight) {
+        checkDensityArguments(mu, 1.0, priorWeight);
+        if (!(y >= 0.0 && y <= 1.0)) {
+            return Double.NEGATIVE_INFINITY;
+        }
+        double trials = priorWeight;
+        return ProbabilityMath.logBinomialTerm(successes(y, trials), trials, mu, 1.0 - mu);
+    }
+
+    @Override
+    public double cumulativeProbability(double y, double mu, double dispersion, double priorWeight) {
+        checkDensityArguments(mu, 1.0, priorWeight);
+        double trials = priorWeight;
+        double k = Math.floor(successes(y, trials));
+        if (k < 0) {
+            return 0.0;
+        }
+        if (k >= trials) {
+            return 1.0;
+        }
+        // P(K <= k) = I_{1-mu}(n - k, k + 1), the regularized incomplete beta function.
+        return Beta.regularizedBeta(1.0 - mu, trials - k, k + 1.0);
+    }
+
+    @Override
+    public boolean isDiscrete() {
+        return true;
+    }
+
+    @Override
+    public double anscombeResidual(double y, double mu) {
+        return anscombe(y, mu);
+    }
+
+    private static final double TWO_THIRDS = 2.0 / 3.0;
+    private static final double BETA_TWO_THIRDS = Math.exp(Beta.logBeta(TWO_THIRDS, TWO_THIRDS));
+
+    /** A(t) = integral of (s(1-s))^(-1/3) from 0 to t = B(2/3, 2/3) I_t(2/3, 2/3). */
+    static double anscombe(double y, double mu) {
+        double ay = y <= 0 ? 0.0 : y >= 1 ? BETA_TWO_THIRDS : BETA_TWO_THIRDS * Beta.regularizedBeta(y, TWO_THIRDS, TWO_THIRDS);
+        double amu = BETA_TWO_THIRDS * Beta.regularizedBeta(mu, TWO_THIRDS, TWO_THIRDS);
+        return (ay - amu) / Math.pow(mu * (1.0 - mu), 1.0 / 6.0);
+    }
+
+    @Override
+    public Link defaultLink() {
+        return Links.logit();
+    }
+
+    @Override
+    public boolean isDispersionFixed() {
+        return true;
+    }
+}

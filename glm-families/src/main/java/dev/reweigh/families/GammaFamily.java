@@ -1,0 +1,103 @@
+package dev.reweigh.families;
+
+import org.apache.commons.math3.special.Gamma;
+
+/** Positive response with variance phi mu^2 / w (constant coefficient of variation). */
+final class GammaFamily extends AbstractFamily {
+    static final GammaFamily INSTANCE = new GammaFamily();
+
+    private GammaFamily() {
+        super("gamma");
+    }
+
+    @Override
+    String varianceText() {
+        return "mu^2";
+    }
+
+    @Override
+    public double variance(double mu) {
+        return mu * mu;
+    }
+
+    @Override
+    public double unitDeviance(double y, double mu) {
+        return PowerVariance.unitDeviance(y, mu, 2.0);
+    }
+
+    @Override
+    public boolean isValidResponse(double y, double priorWeight) {
+        return y > 0.0 && y < Double.POSITIVE_INFINITY;
+    }
+
+    @Override
+    public String responseDomain() {
+        return "a positive finite number";
+    }
+
+    @Override
+    public boolean isValidMean(double mu) {
+        return mu > 0.0 && mu < Double.POSITIVE_INFINITY;
+    }
+
+    @Override
+    public String meanDomain() {
+        return "a positive finite number";
+    }
+
+    @Override
+    public double startingMean(double y, double priorWeight) {
+        return y;
+    }
+
+    @Override
+    public boolean hasDensity() {
+        return true;
+    }
+
+    /**
+     * With shape k = w / phi and scale mu / k, log f = -log y - s(k) + log(k / (2 pi)) / 2 - k d / 2,
+     * where s is the Stirling remainder and d the unit deviance: the form avoids subtracting the
+     * large terms k log k and log Gamma(k) when the dispersion is small.
+     */
+    @Override
+    public double logDensity(double y, double mu, double dispersion, double priorWeight) {
+        checkDensityArguments(mu, dispersion, priorWeight);
+        if (!(y > 0.0) || y == Double.POSITIVE_INFINITY) {
+            return Double.NEGATIVE_INFINITY;
+        }
+        double shape = priorWeight / dispersion;
+        return -Math.log(y) - ProbabilityMath.stirlingRemainder(shape)
+                + 0.5 * (Math.log(shape) - ProbabilityMath.LOG_2PI) - 0.5 * shape * unitDeviance(y, mu);
+    }
+
+    @Override
+    public double cumulativeProbability(double y, double mu, double dispersion, double priorWeight) {
+        checkDensityArguments(mu, dispersion, priorWeight);
+        if (!(y > 0.0)) {
+            return 0.0;
+        }
+        double shape = priorWeight / dispersion;
+        return Gamma.regularizedGammaP(shape, shape * y / mu);
+    }
+
+    @Override
+    public boolean isDiscrete() {
+        return false;
+    }
+
+    @Override
+    public double anscombeResidual(double y, double mu) {
+        return PowerVariance.anscombeResidual(y, mu, 2.0);
+    }
+
+    @Override
+    public Link defaultLink() {
+        return Links.inverse();
+    }
+
+    @Override
+    public boolean isDispersionFixed() {
+        return false;
+    }
+}
