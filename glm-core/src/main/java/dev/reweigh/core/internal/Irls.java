@@ -1,0 +1,407 @@
+package dev.reweigh.core.internal;
+
+import dev.reweigh.core.FitInterruptedException;
+import dev.reweigh.core.FitOptions;
+import dev.reweigh.core.IterationEvent;
+import dev.reweigh.core.Solver;
+import dev.reweigh.families.Family;
+import dev.reweigh.families.InvalidDataException;
+import dev.reweigh.families.Link;
+import dev.reweigh.families.ReweighException;
+
+import java.lang.System.Logger.Level;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+
+/**
+ * Iteratively reweighted least squares with step-halving.
+ *
+ * <p>Each iteration forms the working response z = eta - offset + (y - mu) deta/dmu and working
+ * weights w = priorWeight / (V(mu) (deta/dmu)^2) and solves the weighted least-squares step. A
+ * step whose means or linear predictors leave the family's or link's domain, or whose deviance
+ * rises, is halved towards the previous coefficients. (In the first iteration, which starts from
+ * means rather than coefficients, it is halved towards the starting linear predictor, and a
+ * rising deviance is not a reason, since the starting means need not come from any
+ * coefficients.) The fit has converged when the relative change of the deviance and the largest
+ * coefficient change, measured in units of its column's root mean square and relative to the
+ * largest coefficient so measured, are both below the tolerance.
+ */
+public final class Irls {
+    private static final System.Logger LOG = System.getLogger(Irls.class.getName());
+    /** Above this many entries of the expanded model matrix, AUTO prefers the Cholesky route. */
+    static final long QR_AUTO_LIMIT = 4_000_000L;
+    /** AUTO leaves the Cholesky route when the condition estimate exceeds this. */
+    static final double CHOLESKY_CONDITION_LIMIT = 1e4;
+
+    private final IrlsProblem pr;
+    private final FitOptions options;
+    private final int n;
+    private final int p;
+    private final double[] columnRms;
+
+    private Irls(IrlsProblem problem, FitOptions options) {
+        this.pr = problem;
+        this.options = options;
+        this.n = problem.x.rows();
+        this.p = problem.x.columns();
+        this.columnRms = columnRms(problem.x);
+    }
+
+    /**
+     * Runs the fit.
+     *
+     * @param problem the validated inputs
+     * @param options the fit options
+     * @return the result
+     * @throws FitInterruptedException when the thread is interrupted
+     */
+    public static IrlsResult fit(IrlsProblem problem, FitOptions options) {
+        return new Irls(problem, options).run();
+    }
+
+    private WlsRoute newRoute(boolean accurate) {
+        if (accurate) {
+            return new QrRoute(pr.x, options.rankTolerance());
+        }
+        return new CholeskyRoute(pr.x, CrossProducts.accumulator(options.threads()), options.rankTolerance());
+    }
+
+    private boolean qrAffordable() {
+        return (long) n * p <= QR_AUTO_LIMIT;
+    }
+
+    private IrlsResult run() {
+        long t0 = System.nanoTime();
+        Family family = pr.family;
+        Link link = pr.link;
+        List<String> warnings = new ArrayList<>();
+        double[] eta = new double[n];
+        double[] mu = new double[n];
+        double[] beta = null;
+        startingValues(eta, mu);
+        if (options.startCoefficients().isPresent()) {
+            beta = options.startCoefficients().get();
+        }
+        double dev = deviance(mu);
+
+        Solver solver = options.solver();
+        boolean accurate = solver == Solver.PIVOTED_QR || (solver == Solver.AUTO && qrAffordable());
+        WlsRoute route = newRoute(accurate);
+        boolean[] excluded = null;
+        double[] w = new double[n];
+        double[] z = new double[n];
+        double[] betaNew = new double[p];
+        double[] etaNew = new double[n];
+        double[] muNew = new double[n];
+        boolean converged = false;
+        boolean identityShortcut = isIdentity(link);
+        int iter = 0;
+        while (iter < options.maxIterations()) {
+            if (Thread.interrupted()) {
+                Thread.currentThread().interrupt();
+                throw new FitInterruptedException("the fit was interrupted at iteration " + (iter + 1));
+            }
+            iter++;
+            workingValues(eta, mu, w, z, identityShortcut);
+            if (excluded == null) {
+                excluded = route.decideExcluded(w, pr.candidates);
+                if (beta != null) {
+                    for (int j = 0; j < p; j++) {
+                        if (excluded[j]) {
+                            beta[j] = 0.0;
+                        }
+                    }
+                }
+            }
+            if (!route.solve(w, z, betaNew)) {
+                if (route instanceof CholeskyRoute && (solver == Solver.AUTO) && qrAffordable()) {
+                    route = switchToQr(excluded);
+                    accurate = true;
+                    if (!route.solve(w, z, betaNew)) {
+                        throw numericalFailure(iter);
+                    }
+                } else {
+                    throw numericalFailure(iter);
+                }
+            } else if (solver == Solver.AUTO && !accurate && qrAffordable()
+                    && route.conditionEstimate() > CHOLESKY_CONDITION_LIMIT) {
+                route = switchToQr(excluded);
+                accurate = true;
+                if (!route.solve(w, z, betaNew)) {
+                    throw numericalFailure(iter);
+                }
+            }
+            // step-halving
+            int halvings = 0;
+            boolean fromBeta = beta != null;
+            double[] etaTarget = fromBeta ? null : new double[n];
+            if (!fromBeta) {
+                pr.x.multiply(betaNew, pr.offset, etaTarget);
+            }
+            double devNew;
+            boolean exhausted = false;
+            while (true) {
+                if (fromBeta) {
+                    pr.x.multiply(betaNew, pr.offset, etaNew);
+                } else {
+                    double t = Math.scalb(1.0, -halvings);
+                    for (int i = 0; i < n; i++) {
+                        etaNew[i] = halvings == 0 ? etaTarget[i] : eta[i] + t * (etaTarget[i] - eta[i]);
+                    }
+                }
+                boolean valid = means(etaNew, muNew);
+                devNew = valid ? deviance(muNew) : Double.NaN;
+                boolean ok = valid && Double.isFinite(devNew)
+                        && (!fromBeta || devNew <= dev + 1e-12 * (Math.abs(dev) + 1e-12));
+                if (ok) {
+                    break;
+                }
+                if (halvings >= options.maxStepHalvings()) {
+                    exhausted = true;
+                    break;
+                }
+                halvings++;
+                if (fromBeta) {
+                    for (int j = 0; j < p; j++) {
+                        betaNew[j] = 0.5 * (beta[j] + betaNew[j]);
+                    }
+                }
+            }
+            if (exhausted) {
+                String msg = String.format(Locale.ROOT,
+                        "step-halving exhausted at iteration %d after %d halvings: no step %s; the fit stopped at the"
+                                + " previous coefficients", iter, halvings,
+                        fromBeta ? "lowered the deviance" : "kept the means in the family's domain");
+                warnings.add(msg);
+                LOG.log(Level.WARNING, msg);
+                if (!fromBeta) {
+                    throw new ReweighException("the fit found no valid first step: every step from the starting means"
+                            + " left the domain of the " + family.name() + " family or the " + link.name()
+                            + " link (means must be " + family.meanDomain() + ", linear predictors " + link.etaDomain()
+                            + "); give starting values in the fit options");
+                }
+                emit(iter, dev, halvings, t0);
+                break;
+            }
+            double devChange = Math.abs(devNew - dev) / (Math.abs(devNew) + 0.1);
+            double coefChange = Double.POSITIVE_INFINITY;
+            if (fromBeta) {
+                double num = 0;
+                double den = 0;
+                for (int j = 0; j < p; j++) {
+                    if (!excluded[j]) {
+                        num = Math.max(num, Math.abs(betaNew[j] - beta[j]) * columnRms[j]);
+                        den = Math.max(den, Math.abs(betaNew[j]) * columnRms[j]);
+                    }
+                }
+                coefChange = num == 0 ? 0 : num / Math.max(den, Double.MIN_NORMAL);
+            }
+            boolean fullStepFromStart = !fromBeta && halvings == 0;
+            System.arraycopy(etaNew, 0, eta, 0, n);
+            System.arraycopy(muNew, 0, mu, 0, n);
+            dev = devNew;
+            if (fromBeta || fullStepFromStart) {
+                beta = betaNew.clone();
+            }
+            emit(iter, dev, halvings, t0);
+            if (LOG.isLoggable(Level.DEBUG)) {
+                LOG.log(Level.DEBUG, String.format(Locale.ROOT, "iteration %d: deviance %.12g, %d halvings, route %s",
+                        iter, dev, halvings, accurate ? "QR" : "Cholesky"));
+            }
+            if (devChange < options.tolerance() && coefChange < options.tolerance()) {
+                converged = true;
+                break;
+            }
+        }
+        if (beta == null) {
+            beta = new double[p];
+        }
+        // final quantities at the accepted coefficients
+        double[] beta2 = beta.clone();
+        for (int j = 0; j < p; j++) {
+            if (excluded[j]) {
+                beta2[j] = 0.0;
+            }
+        }
+        pr.x.multiply(beta2, pr.offset, eta);
+        means(eta, mu);
+        dev = deviance(mu);
+        workingValues(eta, mu, w, z, identityShortcut);
+        double[][] cov = route.covariance(w);
+        boolean[] aliased = new boolean[p];
+        for (int j = 0; j < p; j++) {
+            aliased[j] = excluded[j] && pr.candidates[j];
+            if (aliased[j]) {
+                beta2[j] = Double.NaN;
+            }
+        }
+        if (!converged) {
+            String msg = String.format(Locale.ROOT, "the fit did not converge in %d iterations", iter);
+            warnings.add(0, msg);
+            LOG.log(Level.WARNING, msg);
+        }
+        boundaryWarnings(mu, warnings);
+        return new IrlsResult(beta2, aliased, eta, mu, w, cov, dev, iter, converged, warnings,
+                accurate ? "pivoted QR" : "Cholesky");
+    }
+
+    private WlsRoute switchToQr(boolean[] excluded) {
+        QrRoute qr = new QrRoute(pr.x, options.rankTolerance());
+        qr.setExcluded(excluded);
+        return qr;
+    }
+
+    private ReweighException numericalFailure(int iter) {
+        return new ReweighException("the weighted least-squares step failed at iteration " + iter
+                + ": the cross-product matrix is numerically singular; try the PIVOTED_QR solver or a larger rank"
+                + " tolerance");
+    }
+
+    private void emit(int iter, double dev, int halvings, long t0) {
+        options.listener().onIteration(IterationEvent.of(iter, dev, halvings, System.nanoTime() - t0));
+    }
+
+    private static boolean isIdentity(Link link) {
+        return "identity".equals(link.name());
+    }
+
+    private void startingValues(double[] eta, double[] mu) {
+        if (options.startCoefficients().isPresent()) {
+            double[] b = options.startCoefficients().get();
+            if (b.length != p) {
+                throw new IllegalArgumentException("start coefficients have length " + b.length + ", the model has "
+                        + p + " columns");
+            }
+            pr.x.multiply(b, pr.offset, eta);
+            for (int i = 0; i < n; i++) {
+                if (!pr.link.isValidEta(eta[i]) || !pr.family.isValidMean(pr.link.inverse(eta[i]))) {
+                    throw new InvalidDataException("start coefficients", i, Double.toString(eta[i]),
+                            "coefficients giving a linear predictor that is " + pr.link.etaDomain()
+                                    + " and a mean that is " + pr.family.meanDomain());
+                }
+                mu[i] = pr.link.inverse(eta[i]);
+            }
+        } else if (options.startMeans().isPresent()) {
+            double[] m = options.startMeans().get();
+            if (m.length != n) {
+                throw new IllegalArgumentException("start means have length " + m.length + ", the fit uses " + n
+                        + " rows");
+            }
+            for (int i = 0; i < n; i++) {
+                if (!pr.family.isValidMean(m[i]) || !pr.link.isValidEta(pr.link.apply(m[i]))) {
+                    throw new InvalidDataException("start means", i, Double.toString(m[i]), pr.family.meanDomain());
+                }
+                mu[i] = m[i];
+                eta[i] = pr.link.apply(m[i]);
+            }
+        } else {
+            for (int i = 0; i < n; i++) {
+                mu[i] = pr.family.startingMean(pr.y[i], pr.priorWeights[i]);
+                eta[i] = pr.link.apply(mu[i]);
+            }
+        }
+    }
+
+    private void workingValues(double[] eta, double[] mu, double[] w, double[] z, boolean identity) {
+        for (int i = 0; i < n; i++) {
+            double pw = pr.priorWeights[i];
+            if (pw == 0) {
+                w[i] = 0;
+                z[i] = 0;
+                continue;
+            }
+            double d = pr.link.derivative(eta[i]);
+            double v = pr.family.variance(mu[i]);
+            double wi = pw * d * d / v;
+            if (!(wi > 0) || !Double.isFinite(wi) || d == 0) {
+                w[i] = 0;
+                z[i] = 0;
+                continue;
+            }
+            w[i] = wi;
+            z[i] = identity ? pr.y[i] - pr.offset[i] : eta[i] - pr.offset[i] + (pr.y[i] - mu[i]) / d;
+        }
+    }
+
+    private boolean means(double[] eta, double[] mu) {
+        boolean ok = true;
+        for (int i = 0; i < n; i++) {
+            double e = eta[i];
+            if (!pr.link.isValidEta(e)) {
+                ok = false;
+                mu[i] = Double.NaN;
+                continue;
+            }
+            double m = pr.link.inverse(e);
+            mu[i] = m;
+            if (!pr.family.isValidMean(m)) {
+                ok = false;
+            }
+        }
+        return ok;
+    }
+
+    private double deviance(double[] mu) {
+        double s = 0;
+        double c = 0;
+        for (int i = 0; i < n; i++) {
+            double pw = pr.priorWeights[i];
+            if (pw == 0) {
+                continue;
+            }
+            double term = pw * pr.family.unitDeviance(pr.y[i], mu[i]);
+            double t = s + term;
+            c += Math.abs(s) >= Math.abs(term) ? (s - t) + term : (term - t) + s;
+            s = t;
+        }
+        return s + c;
+    }
+
+    private void boundaryWarnings(double[] mu, List<String> warnings) {
+        String fam = pr.family.name().toLowerCase(Locale.ROOT);
+        boolean binomial = fam.contains("binomial") && !fam.contains("negative");
+        double eps = 10 * Math.ulp(1.0);
+        int atBoundary = 0;
+        int zeroMeans = 0;
+        double meanResponse = 0;
+        for (int i = 0; i < n; i++) {
+            meanResponse += Math.abs(pr.y[i]) / n;
+        }
+        for (int i = 0; i < n; i++) {
+            if (pr.priorWeights[i] == 0) {
+                continue;
+            }
+            if (binomial && (mu[i] < eps || mu[i] > 1 - eps)) {
+                atBoundary++;
+            }
+            if (!binomial && Math.abs(mu[i]) < eps * meanResponse && pr.family.variance(mu[i]) < eps) {
+                zeroMeans++;
+            }
+        }
+        if (atBoundary > 0) {
+            warnings.add(String.format(Locale.ROOT, "fitted probabilities numerically 0 or 1 in %d rows: the data may be"
+                    + " (quasi-)separated, and some estimates may be infinite in truth", atBoundary));
+        }
+        if (zeroMeans > 0) {
+            warnings.add(String.format(Locale.ROOT, "fitted means numerically on the boundary of the %s family's domain"
+                    + " (0) in %d rows", pr.family.name(), zeroMeans));
+        }
+    }
+
+    private static double[] columnRms(DesignMatrix x) {
+        int p = x.columns();
+        double[] s = new double[p];
+        double[] row = new double[p];
+        for (int i = 0; i < x.rows(); i++) {
+            x.row(i, row);
+            for (int j = 0; j < p; j++) {
+                s[j] += row[j] * row[j];
+            }
+        }
+        for (int j = 0; j < p; j++) {
+            s[j] = x.rows() == 0 ? 0 : Math.sqrt(s[j] / x.rows());
+        }
+        return s;
+    }
+}
