@@ -7,5 +7,5 @@ module dev.reweigh.inference {
     requires transitive dev.reweigh.core;
     requires commons.math3;
 
-    // exports dev.reweigh.inference;  (enabled once the package has types)
+    exports dev.reweigh.inference;
 }

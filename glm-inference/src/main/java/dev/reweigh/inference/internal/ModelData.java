@@ -1,0 +1,175 @@
+package dev.reweigh.inference.internal;
+
+import dev.reweigh.core.FittedModel;
+import dev.reweigh.families.Family;
+import dev.reweigh.families.Link;
+
+/**
+ * The per-row arrays of a fitted model, read once, with the sums every inference quantity needs.
+ * Rows with zero prior weight carry no information and are skipped by every sum.
+ */
+public final class ModelData {
+    private final FittedModel fit;
+    private final double[] y;
+    private final double[] mu;
+    private final double[] eta;
+    private final double[] priorWeights;
+    private final double[] workingWeights;
+    private final int informativeRows;
+
+    private ModelData(FittedModel fit) {
+        this.fit = fit;
+        this.y = fit.response();
+        this.mu = fit.fittedValues();
+        this.eta = fit.linearPredictor();
+        this.priorWeights = fit.priorWeights();
+        this.workingWeights = fit.workingWeights();
+        int count = 0;
+        for (double w : priorWeights) {
+            if (w > 0) {
+                count++;
+            }
+        }
+        this.informativeRows = count;
+    }
+
+    /**
+     * Reads the arrays of a fitted model.
+     *
+     * @param fit the fitted model
+     * @return its data
+     */
+    public static ModelData of(FittedModel fit) {
+        return new ModelData(fit);
+    }
+
+    /** @return the fitted model */
+    public FittedModel fit() {
+        return fit;
+    }
+
+    /** @return the family */
+    public Family family() {
+        return fit.family();
+    }
+
+    /** @return the link */
+    public Link link() {
+        return fit.link();
+    }
+
+    /** @return the number of rows used in the fit */
+    public int rows() {
+        return y.length;
+    }
+
+    /** @return the number of rows with a positive prior weight */
+    public int informativeRows() {
+        return informativeRows;
+    }
+
+    /**
+     * @param i row
+     * @return the response of row i
+     */
+    public double y(int i) {
+        return y[i];
+    }
+
+    /**
+     * @param i row
+     * @return the fitted mean of row i
+     */
+    public double mu(int i) {
+        return mu[i];
+    }
+
+    /**
+     * @param i row
+     * @return the linear predictor of row i
+     */
+    public double eta(int i) {
+        return eta[i];
+    }
+
+    /**
+     * @param i row
+     * @return the prior weight of row i
+     */
+    public double priorWeight(int i) {
+        return priorWeights[i];
+    }
+
+    /**
+     * @param i row
+     * @return the working weight of row i at convergence
+     */
+    public double workingWeight(int i) {
+        return workingWeights[i];
+    }
+
+    /** @return a copy of the responses */
+    public double[] responses() {
+        return y.clone();
+    }
+
+    /** @return a copy of the fitted means */
+    public double[] means() {
+        return mu.clone();
+    }
+
+    /** @return a copy of the prior weights */
+    public double[] priorWeights() {
+        return priorWeights.clone();
+    }
+
+    /**
+     * Returns the Pearson chi-square statistic, the sum of w (y - mu)^2 / V(mu).
+     *
+     * @return the Pearson statistic
+     */
+    public double pearsonChiSquare() {
+        Family family = fit.family();
+        double sum = 0;
+        for (int i = 0; i < y.length; i++) {
+            if (priorWeights[i] > 0) {
+                double r = y[i] - mu[i];
+                sum += priorWeights[i] * r * r / family.variance(mu[i]);
+            }
+        }
+        return sum;
+    }
+
+    /**
+     * Returns the sum of w_i times the unit deviance, recomputed from the family.
+     *
+     * @return the deviance
+     */
+    public double deviance() {
+        Family family = fit.family();
+        double sum = 0;
+        for (int i = 0; i < y.length; i++) {
+            if (priorWeights[i] > 0) {
+                sum += priorWeights[i] * family.unitDeviance(y[i], mu[i]);
+            }
+        }
+        return sum;
+    }
+
+    /**
+     * Returns the log-likelihood at the fitted means for a given dispersion.
+     *
+     * @param family the family whose density is summed (usually the model's)
+     * @param dispersion phi
+     * @return the sum of the prior-weighted log-densities
+     */
+    public double logLikelihood(Family family, double dispersion) {
+        double sum = 0;
+        for (int i = 0; i < y.length; i++) {
+            if (priorWeights[i] > 0) {
+                sum += family.logDensity(y[i], mu[i], dispersion, priorWeights[i]);
+            }
+        }
+        return sum;
+    }
+}
