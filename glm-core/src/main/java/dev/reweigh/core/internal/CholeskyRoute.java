@@ -8,6 +8,9 @@ import java.util.Arrays;
  * rankTolerance^2 marks the column aliased when the rank is decided; later it means breakdown).
  */
 final class CholeskyRoute implements WlsRoute {
+    /** Cross products resolve remainders down to about sqrt(1e-14) = 1e-7 of a column's length. */
+    static final double MIN_TOLERANCE = 1e-7;
+
     private final DesignMatrix x;
     private final CrossProductAccumulator accumulator;
     private final double rankTolerance;
@@ -22,7 +25,7 @@ final class CholeskyRoute implements WlsRoute {
     CholeskyRoute(DesignMatrix x, CrossProductAccumulator accumulator, double rankTolerance) {
         this.x = x;
         this.accumulator = accumulator;
-        this.rankTolerance = rankTolerance;
+        this.rankTolerance = Math.max(rankTolerance, MIN_TOLERANCE);
         this.p = x.columns();
         this.gram = new double[p * p];
         this.xtwz = new double[p];

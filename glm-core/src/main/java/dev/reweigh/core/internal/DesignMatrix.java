@@ -192,6 +192,19 @@ public final class DesignMatrix {
      * @param eta receives the result (length n)
      */
     public void multiply(double[] beta, double[] offset, double[] eta) {
+        multiply(beta, offset, eta, null);
+    }
+
+    /**
+     * As {@link #multiply(double[], double[], double[])}, also writing the low-order part of each
+     * result, so that eta + etaLow is X beta + offset to about 32 significant digits.
+     *
+     * @param beta the coefficients (length p)
+     * @param offset the offset (length n) or null
+     * @param eta receives the rounded result (length n)
+     * @param etaLow receives the low-order parts (length n), or null
+     */
+    public void multiply(double[] beta, double[] offset, double[] eta, double[] etaLow) {
         double[] b = new double[columns];
         for (int j = 0; j < columns; j++) {
             b[j] = Double.isNaN(beta[j]) ? 0.0 : beta[j];
@@ -225,7 +238,11 @@ public final class DesignMatrix {
                     s = t;
                 }
             }
-            eta[i] = s + e;
+            double hi = s + e;
+            eta[i] = hi;
+            if (etaLow != null) {
+                etaLow[i] = e - (hi - s);
+            }
         }
     }
 

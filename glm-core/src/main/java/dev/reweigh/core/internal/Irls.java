@@ -224,9 +224,10 @@ public final class Irls {
                 beta2[j] = 0.0;
             }
         }
-        pr.x.multiply(beta2, pr.offset, eta);
+        double[] etaLow = new double[n];
+        pr.x.multiply(beta2, pr.offset, eta, etaLow);
         means(eta, mu);
-        dev = deviance(mu);
+        dev = identityShortcut && "gaussian".equals(family.name()) ? gaussianDeviance(eta, etaLow) : deviance(mu);
         workingValues(eta, mu, w, z, identityShortcut);
         double[][] cov = route.covariance(w);
         boolean[] aliased = new boolean[p];
@@ -353,6 +354,24 @@ public final class Irls {
             double term = pw * pr.family.unitDeviance(pr.y[i], mu[i]);
             double t = s + term;
             c += Math.abs(s) >= Math.abs(term) ? (s - t) + term : (term - t) + s;
+            s = t;
+        }
+        return s + c;
+    }
+
+    /** Residual sum of squares with residuals y - eta formed from the double-double eta. */
+    private double gaussianDeviance(double[] eta, double[] etaLow) {
+        double s = 0;
+        double c = 0;
+        for (int i = 0; i < n; i++) {
+            double pw = pr.priorWeights[i];
+            if (pw == 0) {
+                continue;
+            }
+            double r = (pr.y[i] - eta[i]) - etaLow[i];
+            double term = pw * r * r;
+            double t = s + term;
+            c += (s - t) + term;
             s = t;
         }
         return s + c;
