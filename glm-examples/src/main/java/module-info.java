@@ -11,6 +11,7 @@ module dev.reweigh.examples {
     requires com.fasterxml.jackson.core;
     requires java.desktop;
 
-    // exports dev.reweigh.examples;
-    // opens dev.reweigh.examples to info.picocli;
+    exports dev.reweigh.examples;
+    exports dev.reweigh.examples.csv;
+    opens dev.reweigh.examples to info.picocli;
 }
