@@ -19,7 +19,8 @@ public final class CrossProducts {
      * @return an accumulator
      */
     public static CrossProductAccumulator accumulator(int threads) {
-        return CrossProducts::accumulateSimple;
+        // blocked, level-coded, bit-identical for any thread count (package internal.wls)
+        return new dev.reweigh.core.internal.wls.DesignGramAccumulator(threads, null);
     }
 
     static void accumulateSimple(DesignMatrix x, double[] w, double[] z, double[] gram, double[] xtwz) {
