@@ -27,18 +27,23 @@ class ResidualPropertiesTest {
 
     @Provide
     Arbitrary<String> families() {
-        return Arbitraries.of("poisson", "gamma", "gaussian", "inverse-gaussian", "negative-binomial");
+        return Arbitraries.of("poisson", "gamma", "gaussian", "inverse-gaussian", "negative-binomial", "binomial");
     }
 
     static FittedModel fitFor(String family, int n, long seed) {
         switch (family) {
             case "poisson":
                 return Glm.fit(ModelSpec.builder("claims").family(Families.poisson()).factor("vehicle", "hatchback")
-                        .numeric("age").logOffset("exposure").build(), TestData.poissonCounts(n, seed));
+                        .numeric("age").logOffset("exposure").build(),
+                        // claims are rare: four times the rows keep every vehicle class away from all-zero counts
+                        TestData.poissonCounts(4 * n, seed));
             case "negative-binomial":
                 return Glm.fit(ModelSpec.builder("claims").family(Families.negativeBinomial(2.0))
                         .factor("vehicle", "hatchback").numeric("age").logOffset("exposure").build(),
                         TestData.negativeBinomialCounts(n, 2.0, seed));
+            case "binomial":
+                return Glm.fit(ModelSpec.builder("lapsed").trials("policies").family(Families.binomial())
+                        .factor("vehicle", "hatchback").numeric("age").build(), TestData.binomialLapses(n, seed));
             case "gaussian":
                 return Glm.fit(ModelSpec.builder("severity").family(Families.gaussian())
                         .factor("vehicle", "hatchback").numeric("age").build(),

@@ -177,6 +177,21 @@ final class TestData {
         return p.table().numeric("claims", y).build();
     }
 
+    /** Lapses out of 1 to 5 policies per row: binomial with a logistic mean around 0.4. */
+    static Table binomialLapses(int n, long seed) {
+        Portfolio p = new Portfolio(n, seed);
+        double[] lapsed = new double[n];
+        double[] policies = new double[n];
+        for (int i = 0; i < n; i++) {
+            double prob = 1 / (1 + Math.exp(-p.logMean(i, -0.4)));
+            policies[i] = 1 + p.rng.nextInt(5);
+            for (int k = 0; k < policies[i]; k++) {
+                lapsed[i] += p.rng.nextDouble() < prob ? 1 : 0;
+            }
+        }
+        return p.table().numeric("lapsed", lapsed).numeric("policies", policies).build();
+    }
+
     /** Pure premiums: compound Poisson sums of Gamma claims, i.e. Tweedie with power in (1, 2). */
     static Table compoundPoissonPremiums(int n, double power, double dispersion, long seed) {
         Portfolio p = new Portfolio(n, seed);
