@@ -63,6 +63,15 @@ final class DesignRecipe {
         return columnNames;
     }
 
+    // read by ScoringTerm, which writes the resolved encoding into model artifacts and scorers
+    boolean hasIntercept() {
+        return intercept;
+    }
+
+    List<Encoder> encoders() {
+        return encoders;
+    }
+
     static DesignRecipe create(ModelSpec spec, Table data, int[] rows, double[] priorWeights) {
         List<Encoder> enc = new ArrayList<>();
         for (Term t : spec.terms()) {
@@ -201,8 +210,8 @@ final class DesignRecipe {
         return new FactorEncoder(column, levels, ref);
     }
 
-    private static final class NumericEncoder implements Encoder {
-        private final String column;
+    static final class NumericEncoder implements Encoder {
+        final String column;
 
         NumericEncoder(String column) {
             this.column = column;
@@ -226,10 +235,10 @@ final class DesignRecipe {
         return v;
     }
 
-    private static final class FactorEncoder implements Encoder {
-        private final String column;
-        private final List<String> levels;
-        private final int ref;
+    static final class FactorEncoder implements Encoder {
+        final String column;
+        final List<String> levels;
+        final int ref;
         private final List<String> names;
         private final Map<String, Integer> index = new HashMap<>();
 
@@ -275,9 +284,9 @@ final class DesignRecipe {
         }
     }
 
-    private static final class RawPolynomialEncoder implements Encoder {
-        private final String column;
-        private final int degree;
+    static final class RawPolynomialEncoder implements Encoder {
+        final String column;
+        final int degree;
 
         RawPolynomialEncoder(String column, int degree) {
             this.column = column;
@@ -315,10 +324,10 @@ final class DesignRecipe {
         }
     }
 
-    private static final class OrthogonalPolynomialEncoder implements Encoder {
-        private final String column;
-        private final double[] alpha;  // centre of each recurrence step
-        private final double[] norm2;  // squared norms of P_0 .. P_degree over the fitting rows
+    static final class OrthogonalPolynomialEncoder implements Encoder {
+        final String column;
+        final double[] alpha;  // centre of each recurrence step
+        final double[] norm2;  // squared norms of P_0 .. P_degree over the fitting rows
 
         private OrthogonalPolynomialEncoder(String column, double[] alpha, double[] norm2) {
             this.column = column;
@@ -389,9 +398,9 @@ final class DesignRecipe {
         }
     }
 
-    private static final class InteractionEncoder implements Encoder {
-        private final Encoder a;
-        private final Encoder b;
+    static final class InteractionEncoder implements Encoder {
+        final Encoder a;
+        final Encoder b;
 
         InteractionEncoder(Encoder a, Encoder b) {
             this.a = a;

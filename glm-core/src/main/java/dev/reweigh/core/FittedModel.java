@@ -86,6 +86,11 @@ public final class FittedModel {
         this.route = r.route;
     }
 
+    /** The frozen encoding of the terms (package-private, for scoring and artifacts). */
+    DesignRecipe recipe() {
+        return recipe;
+    }
+
     /**
      * Returns the specification that was fitted.
      *
@@ -606,6 +611,30 @@ public final class FittedModel {
             }
         }
         return Glm.fit(spec, data, o, f);
+    }
+
+    /**
+     * Builds a scorer for this model with the default options: unseen factor levels are an
+     * error, no intervals. Its scores are bit-identical to {@link #predictLink(Table)} and
+     * {@link #predictMean(Table)}, and to those of the model's {@link ModelArtifact} once read
+     * back.
+     *
+     * @return the scorer, thread-safe
+     * @since 0.1
+     */
+    public Scorer scorer() {
+        return Scorer.builder(this).build();
+    }
+
+    /**
+     * Starts a scorer for this model with options (unseen levels, intervals, dispersion).
+     *
+     * @return a builder; its dispersion defaults to 1 for families with a fixed dispersion and
+     *     the Pearson estimate otherwise
+     * @since 0.1
+     */
+    public Scorer.Builder scorerBuilder() {
+        return Scorer.builder(this);
     }
 
     /**
