@@ -274,6 +274,37 @@ public final class Inference {
     }
 
     /**
+     * Tests that all estimable coefficients of one term are zero, jointly (e.g. every level of a
+     * factor). The term's columns are found by refitting the model without the term (one refit)
+     * and taking the columns that disappear.
+     *
+     * @param termLabel the term's label as in {@link Term#label()}
+     * @return the Wald test
+     * @throws UnknownNameException when the model has no such term
+     * @throws IllegalArgumentException when every column of the term is aliased
+     * @since 0.1
+     */
+    public WaldTest waldTestOfTerm(String termLabel) {
+        List<String> labels = new ArrayList<>();
+        fit.spec().terms().forEach(t -> labels.add(t.label()));
+        if (!labels.contains(termLabel)) {
+            throw new UnknownNameException("term", termLabel, labels);
+        }
+        List<String> remaining = fit.refit(fit.spec().withoutTerm(termLabel)).columnNames();
+        List<String> columns = new ArrayList<>();
+        List<String> names = fit.columnNames();
+        for (int j = 0; j < names.size(); j++) {
+            if (!remaining.contains(names.get(j)) && !fit.isAliased(j)) {
+                columns.add(names.get(j));
+            }
+        }
+        if (columns.isEmpty()) {
+            throw new IllegalArgumentException("term '" + termLabel + "' has no estimable column to test");
+        }
+        return waldTest(columns.toArray(new String[0]));
+    }
+
+    /**
      * Tests the linear hypothesis L beta = c jointly.
      *
      * @param l the q by p hypothesis matrix (p = all model-matrix columns, aliased included; the

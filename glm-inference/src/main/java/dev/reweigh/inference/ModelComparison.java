@@ -82,40 +82,135 @@ public final class ModelComparison {
      * @since 0.1
      */
     public static ModelComparison ofLabelled(Criterion criterion, Map<String, FittedModel> fits) {
-        Objects.requireNonNull(criterion, "criterion");
-        if (fits.size() < 2) {
-            throw new IllegalArgumentException("a comparison needs at least two models, got " + fits.size());
+        Builder builder = builder(criterion);
+        fits.forEach(builder::add);
+        return builder.build();
+    }
+
+    /**
+     * Starts a comparison to which models are added one by one, including models whose family
+     * parameter was estimated (negative binomial theta, Tweedie power), which then count that
+     * parameter.
+     *
+     * <pre>{@code
+     * ModelComparison c = ModelComparison.builder(Criterion.AIC)
+     *         .add("poisson", poissonFit)
+     *         .add("negative binomial", NegativeBinomialTheta.estimate(poissonFit))
+     *         .build();
+     * }</pre>
+     *
+     * @param criterion the criterion to rank by
+     * @return a new builder
+     * @since 0.1
+     */
+    public static Builder builder(Criterion criterion) {
+        return new Builder(criterion);
+    }
+
+    /**
+     * Collects labelled models for a {@link ModelComparison}. A builder is not thread-safe; the
+     * comparison it builds is.
+     *
+     * @since 0.1
+     */
+    public static final class Builder {
+        private final Criterion criterion;
+        private final List<String> labels = new ArrayList<>();
+        private final List<FittedModel> fits = new ArrayList<>();
+        private final List<InformationCriteria> criteria = new ArrayList<>();
+
+        private Builder(Criterion criterion) {
+            this.criterion = Objects.requireNonNull(criterion, "criterion");
         }
-        List<Map.Entry<String, FittedModel>> entries = new ArrayList<>(fits.entrySet());
-        Map.Entry<String, FittedModel> first = entries.get(0);
-        for (Map.Entry<String, FittedModel> e : entries.subList(1, entries.size())) {
-            Comparability.sameData("model '" + first.getKey() + "'", first.getValue(), "model '" + e.getKey() + "'",
-                    e.getValue());
+
+        /**
+         * Adds a fitted model; its family's parameters count as given.
+         *
+         * @param label a label not used before
+         * @param fit the model
+         * @return this builder
+         * @throws IllegalArgumentException when the label is already used
+         * @throws dev.reweigh.families.NoLikelihoodException when the family has no density
+         * @since 0.1
+         */
+        public Builder add(String label, FittedModel fit) {
+            return add(label, fit, Inference.of(fit).informationCriteria());
         }
-        List<String> labels = new ArrayList<>();
-        List<FittedModel> models = new ArrayList<>();
-        List<InformationCriteria> criteria = new ArrayList<>();
-        double best = Double.POSITIVE_INFINITY;
-        for (Map.Entry<String, FittedModel> e : entries) {
-            InformationCriteria ic = Inference.of(e.getValue()).informationCriteria();
-            labels.add(e.getKey());
-            models.add(e.getValue());
+
+        /**
+         * Adds a negative binomial model whose theta was estimated (theta counts as a parameter).
+         *
+         * @param label a label not used before
+         * @param theta the estimate, with its fit
+         * @return this builder
+         * @throws IllegalArgumentException when the label is already used
+         * @throws ModelMismatchException when the model differs from the first one added in rows,
+         *     response or prior weights
+         * @since 0.1
+         */
+        public Builder add(String label, NegativeBinomialTheta theta) {
+            return add(label, theta.fit(), theta.informationCriteria());
+        }
+
+        /**
+         * Adds a Tweedie model whose power was chosen by profile likelihood (the power counts as a
+         * parameter).
+         *
+         * @param label a label not used before
+         * @param profile the profile, with its fit
+         * @return this builder
+         * @throws IllegalArgumentException when the label is already used
+         * @throws ModelMismatchException when the model differs from the first one added in rows,
+         *     response or prior weights
+         * @since 0.1
+         */
+        public Builder add(String label, TweediePowerProfile profile) {
+            return add(label, profile.fit(), profile.informationCriteria());
+        }
+
+        private Builder add(String label, FittedModel fit, InformationCriteria ic) {
+            Objects.requireNonNull(label, "label");
+            if (labels.contains(label)) {
+                throw new IllegalArgumentException("label '" + label + "' is already used; labels must be unique");
+            }
+            if (!fits.isEmpty()) {
+                Comparability.sameData("model '" + labels.get(0) + "'", fits.get(0), "model '" + label + "'", fit);
+            }
+            labels.add(label);
+            fits.add(fit);
             criteria.add(ic);
-            best = Math.min(best, ic.value(criterion));
+            return this;
         }
-        double total = 0;
-        double[] raw = new double[entries.size()];
-        for (int i = 0; i < raw.length; i++) {
-            raw[i] = Math.exp(-(criteria.get(i).value(criterion) - best) / 2);
-            total += raw[i];
+
+        /**
+         * Ranks the models added.
+         *
+         * @return the comparison, best first
+         * @throws IllegalArgumentException when fewer than two models were added
+         * @since 0.1
+         */
+        public ModelComparison build() {
+            if (fits.size() < 2) {
+                throw new IllegalArgumentException("a comparison needs at least two models, got " + fits.size());
+            }
+            double best = Double.POSITIVE_INFINITY;
+            for (InformationCriteria ic : criteria) {
+                best = Math.min(best, ic.value(criterion));
+            }
+            double total = 0;
+            double[] raw = new double[fits.size()];
+            for (int i = 0; i < raw.length; i++) {
+                raw[i] = Math.exp(-(criteria.get(i).value(criterion) - best) / 2);
+                total += raw[i];
+            }
+            List<ComparedModel> rows = new ArrayList<>();
+            for (int i = 0; i < raw.length; i++) {
+                rows.add(new ComparedModel(labels.get(i), fits.get(i), criteria.get(i),
+                        criteria.get(i).value(criterion) - best, raw[i] / total));
+            }
+            rows.sort(Comparator.comparingDouble(ComparedModel::difference));
+            return new ModelComparison(criterion, rows);
         }
-        List<ComparedModel> rows = new ArrayList<>();
-        for (int i = 0; i < raw.length; i++) {
-            rows.add(new ComparedModel(labels.get(i), models.get(i), criteria.get(i),
-                    criteria.get(i).value(criterion) - best, raw[i] / total));
-        }
-        rows.sort(Comparator.comparingDouble(ComparedModel::difference));
-        return new ModelComparison(criterion, rows);
     }
 
     /**

@@ -49,6 +49,53 @@ class InformationCriteriaTest {
     }
 
     @Test
+    void logLikelihoodsAgreeWithCommonsMathDensities() {
+        // Gamma at its ML dispersion: shape 1/phi, scale mu phi (reference library: Commons Math)
+        FittedModel gamma = DispersionTest.gammaFit(TestData.gammaSeverities(150, 2.5, 102));
+        InformationCriteria ic = Inference.of(gamma).informationCriteria();
+        double[] y = gamma.response();
+        double[] mu = gamma.fittedValues();
+        double phi = ic.dispersion();
+        double l = 0;
+        for (int i = 0; i < y.length; i++) {
+            l += new org.apache.commons.math3.distribution.GammaDistribution(1 / phi, mu[i] * phi).logDensity(y[i]);
+        }
+        assertEquals(l, ic.logLikelihood(), 1e-8 * Math.abs(l));
+        assertEquals(gamma.rank() + 1, ic.parameters());
+        // Poisson (ship damage) and binomial (beetles) at dispersion 1
+        FittedModel ships = ReferenceDataTest.shipsMainEffects();
+        double lp = 0;
+        for (int i = 0; i < ships.rowCount(); i++) {
+            lp += new org.apache.commons.math3.distribution.PoissonDistribution(ships.fittedValues()[i])
+                    .logProbability((int) ships.response()[i]);
+        }
+        assertEquals(lp, Inference.of(ships).logLikelihood(), 1e-8 * Math.abs(lp));
+        FittedModel beetles = ReferenceDataTest.beetles(Links.logit());
+        double lb = 0;
+        for (int i = 0; i < beetles.rowCount(); i++) {
+            int trials = (int) Math.round(beetles.priorWeights()[i]);
+            lb += new org.apache.commons.math3.distribution.BinomialDistribution(trials, beetles.fittedValues()[i])
+                    .logProbability((int) Math.round(beetles.response()[i] * trials));
+        }
+        assertEquals(lb, Inference.of(beetles).logLikelihood(), 1e-8 * Math.abs(lb));
+    }
+
+    @Test
+    void estimatedThetaCountsAsAParameterInAComparison() {
+        Table counts = TestData.negativeBinomialCounts(800, 2.0, 103);
+        FittedModel poisson = Glm.fit(ModelSpec.builder("claims").family(Families.poisson())
+                .factor("vehicle", "hatchback").numeric("age").logOffset("exposure").build(), counts);
+        NegativeBinomialTheta nb = NegativeBinomialTheta.estimate(poisson);
+        ModelComparison c = ModelComparison.builder(Criterion.BIC).add("poisson", poisson)
+                .add("negative binomial", nb).build();
+        assertEquals("negative binomial", c.best().label(), c.toString());
+        assertEquals(poisson.rank() + 1, c.best().criteria().parameters());
+        assertThrows(IllegalArgumentException.class,
+                () -> ModelComparison.builder(Criterion.AIC).add("a", poisson).add("a", nb));
+        assertThrows(IllegalArgumentException.class, () -> ModelComparison.builder(Criterion.AIC).add("a", poisson).build());
+    }
+
+    @Test
     void exactLikelihoodAicPrefersTheFamilyThatGeneratedTheData() {
         // Gamma severities with shape 2 (coefficient of variation 0.71) against the same means with a constant
         // spread: at 400 rows the heteroscedasticity is unmistakable, so both rankings hold with power close to 1
