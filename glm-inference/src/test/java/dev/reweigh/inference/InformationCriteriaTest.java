@@ -97,9 +97,11 @@ class InformationCriteriaTest {
 
     @Test
     void exactLikelihoodAicPrefersTheFamilyThatGeneratedTheData() {
-        // Gamma severities with shape 2 (coefficient of variation 0.71) against the same means with a constant
-        // spread: at 400 rows the heteroscedasticity is unmistakable, so both rankings hold with power close to 1
-        // (in 200 seeds of this design we would expect no reversal); the seeds are fixed.
+        // Gamma severities with shape 2 (coefficient of variation 0.71) against Gaussian severities with the same
+        // means and a constant sd of 250, 400 rows each. Power measured once with this code over seeds 1000-1199:
+        // on Gamma data the Gamma model had the smaller AIC in 200 of 200 (smallest margin 131); on Gaussian data
+        // the Gaussian model won in all 179 seeds whose responses were all positive (smallest margin 42; the
+        // other 21 had a negative response, which a Gamma model cannot fit). The seeds here are fixed.
         Table gammaData = TestData.gammaSeverities(400, 2.0, 111);
         ModelComparison onGamma = ModelComparison.of(Criterion.AIC,
                 Glm.fit(severity(Families.gaussian()), gammaData), Glm.fit(severity(Families.gamma()), gammaData));
