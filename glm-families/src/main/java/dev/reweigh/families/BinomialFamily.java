@@ -35,7 +35,8 @@ final class BinomialFamily extends AbstractFamily {
         if (y == 1.0) {
             return -2.0 * Math.log(mu);
         }
-        return 2.0 * (ProbabilityMath.bd0(y, mu) + ProbabilityMath.bd0(1.0 - y, 1.0 - mu));
+        // 1 - y and 1 - mu are rounded, but their difference mu - y is exact: pass it explicitly.
+        return 2.0 * (ProbabilityMath.bd0(y, mu) + ProbabilityMath.bd0(1.0 - y, 1.0 - mu, mu - y));
     }
 
     @Override
@@ -116,11 +117,18 @@ final class BinomialFamily extends AbstractFamily {
     private static final double TWO_THIRDS = 2.0 / 3.0;
     private static final double BETA_TWO_THIRDS = Math.exp(Beta.logBeta(TWO_THIRDS, TWO_THIRDS));
 
-    /** A(t) = integral of (s(1-s))^(-1/3) from 0 to t = B(2/3, 2/3) I_t(2/3, 2/3). */
+    /**
+     * A(t) = integral of (s(1-s))^(-1/3) from 0 to t = B(2/3, 2/3) I_t(2/3, 2/3). Close to mu the
+     * difference A(y) - A(mu) is integrated directly over [mu, y] instead of subtracting.
+     */
     static double anscombe(double y, double mu) {
+        double scale = Math.pow(mu * (1.0 - mu), 1.0 / 6.0);
+        if (Math.abs(y - mu) <= 0.1 * Math.min(mu, 1.0 - mu)) {
+            return NearbyIntegral.integrate(t -> Math.pow(t * (1.0 - t), -1.0 / 3.0), mu, y) / scale;
+        }
         double ay = y <= 0 ? 0.0 : y >= 1 ? BETA_TWO_THIRDS : BETA_TWO_THIRDS * Beta.regularizedBeta(y, TWO_THIRDS, TWO_THIRDS);
         double amu = BETA_TWO_THIRDS * Beta.regularizedBeta(mu, TWO_THIRDS, TWO_THIRDS);
-        return (ay - amu) / Math.pow(mu * (1.0 - mu), 1.0 / 6.0);
+        return (ay - amu) / scale;
     }
 
     @Override

@@ -32,14 +32,16 @@ final class NegativeBinomialFamily extends AbstractFamily {
     /**
      * 2 [y log(y/mu) - (y + theta) log((y + theta)/(mu + theta))], written as
      * 2 [bd0(y, mu) - bd0(y + theta, mu + theta)] (the linear terms cancel), which keeps the
-     * digits near y = mu; the difference is clamped at 0 against rounding.
+     * digits near y = mu (y + theta and mu + theta are rounded, so their difference is passed as
+     * the exact y - mu). The subtraction costs about log10((mu + theta) / theta) digits; the result
+     * is clamped at 0 against rounding.
      */
     @Override
     public double unitDeviance(double y, double mu) {
         if (y == 0.0) {
             return 2.0 * theta * Math.log1p(mu / theta);
         }
-        double d = 2.0 * (ProbabilityMath.bd0(y, mu) - ProbabilityMath.bd0(y + theta, mu + theta));
+        double d = 2.0 * (ProbabilityMath.bd0(y, mu) - ProbabilityMath.bd0(y + theta, mu + theta, y - mu));
         return Math.max(0.0, d);
     }
 
@@ -88,7 +90,7 @@ final class NegativeBinomialFamily extends AbstractFamily {
         double total = k + theta;
         double p = theta / (theta + mu);
         double q = mu / (theta + mu);
-        double logPmf = Math.log(theta / total) + ProbabilityMath.logBinomialTerm(theta, total, p, q);
+        double logPmf = Math.log(theta / total) + ProbabilityMath.logBinomialTerm(theta, total, k, p, q);
         return priorWeight * logPmf;
     }
 
@@ -111,10 +113,15 @@ final class NegativeBinomialFamily extends AbstractFamily {
     /**
      * A(t) = integral of V(s)^(-1/3) ds has no elementary form here. With s = u^3 the integrand
      * becomes 3 u (1 + u^3 / theta)^(-1/3), smooth down to u = 0, and is integrated numerically by
-     * Gauss-Legendre quadrature.
+     * Gauss-Legendre quadrature. Close to mu the integral is taken over [mu, y] in s itself, so
+     * that the rounding of the cube roots does not matter.
      */
     @Override
     public double anscombeResidual(double y, double mu) {
+        if (Math.abs(y - mu) <= 0.1 * mu) {
+            return NearbyIntegral.integrate(s -> Math.pow(variance(s), -1.0 / 3.0), mu, y)
+                    / Math.pow(variance(mu), 1.0 / 6.0);
+        }
         double lower = Math.cbrt(mu);
         double upper = Math.cbrt(y);
         if (lower == upper) {

@@ -34,8 +34,7 @@ final class PowerVariance {
             // Only reached for p < 2, where y^(2-p) vanishes.
             return 2.0 * Math.pow(mu, b) / b;
         }
-        double ratio = y / mu;
-        double u = (ratio > 0 && Double.isFinite(ratio)) ? Math.log(ratio) : Math.log(y) - Math.log(mu);
+        double u = logRatio(y, mu);
         double h;
         if (Math.abs(u) * Math.max(1.0, Math.abs(b)) < 1.0) {
             h = smallLogRatioSeries(u, b);
@@ -43,6 +42,23 @@ final class PowerVariance {
             h = (Math.expm1(b * u) / b - Math.expm1(u)) / (b - 1.0);
         }
         return Math.max(0.0, 2.0 * Math.pow(mu, b) * h);
+    }
+
+    /**
+     * log(y / mu) for y, mu &gt; 0: through log1p of the exact difference when y is within a factor
+     * of two of mu (where y / mu would lose the digits of a small logarithm), through the ratio
+     * otherwise (where (y - mu) / mu would round to -1 for a tiny y and lose log y altogether).
+     */
+    static double logRatio(double y, double mu) {
+        double relative = (y - mu) / mu;
+        if (relative > -0.5 && relative < 1.0) {
+            return Math.log1p(relative);
+        }
+        double ratio = y / mu;
+        if (ratio > 0 && ratio < Double.POSITIVE_INFINITY) {
+            return Math.log(ratio);
+        }
+        return Math.log(y) - Math.log(mu);
     }
 
     private static double smallLogRatioSeries(double u, double b) {
@@ -66,16 +82,20 @@ final class PowerVariance {
 
     /**
      * Anscombe residual of V(mu) = mu^p at unit weight and dispersion: with A'(mu) = mu^(-p/3),
-     * (y^c - mu^c) / (c mu^(p/6)) where c = 1 - p/3, and log(y/mu) / sqrt(mu) at p = 3.
+     * (y^c - mu^c) / (c mu^(p/6)) where c = 1 - p/3, and log(y/mu) / sqrt(mu) at p = 3. The
+     * difference y^c - mu^c is written as mu^c expm1(c log1p((y - mu)/mu)), which keeps its digits
+     * when y is close to mu.
      */
     static double anscombeResidual(double y, double mu, double p) {
         if (p == 0.0) {
             return y - mu;
         }
+        double logRatio = logRatio(y, mu);
         if (p == 3.0) {
-            return Math.log(y / mu) / Math.sqrt(mu);
+            return logRatio / Math.sqrt(mu);
         }
         double c = 1.0 - p / 3.0;
-        return (Math.pow(y, c) - Math.pow(mu, c)) / (c * Math.pow(mu, p / 6.0));
+        double difference = y == 0.0 ? -Math.pow(mu, c) : Math.pow(mu, c) * Math.expm1(c * logRatio);
+        return difference / (c * Math.pow(mu, p / 6.0));
     }
 }

@@ -26,13 +26,22 @@ final class ProbabilityMath {
      * direct form.
      */
     static double bd0(double x, double m) {
+        return bd0(x, m, x - m);
+    }
+
+    /**
+     * As {@link #bd0(double, double)} with the difference x - m supplied by the caller. When x and
+     * m are themselves rounded (1 - y and 1 - mu, or y + theta and mu + theta), their computed
+     * difference can be wrong in every digit while the caller knows it exactly (mu - y); every
+     * term here uses x and m only as factors, so their rounding costs no more than a few ulps.
+     */
+    static double bd0(double x, double m, double diff) {
         if (x == 0.0) {
             return m;
         }
         if (m == 0.0 || Double.isInfinite(m)) {
             return Double.POSITIVE_INFINITY;
         }
-        double diff = x - m;
         if (Math.abs(diff) < 0.1 * (x + m)) {
             double v = diff / (x + m);
             double sum = diff * v;
@@ -48,9 +57,9 @@ final class ProbabilityMath {
             }
             return sum;
         }
-        double ratio = x / m;
-        double logRatio = (ratio > 0 && Double.isFinite(ratio)) ? Math.log(ratio) : Math.log(x) - Math.log(m);
-        return x * logRatio + m - x;
+        double relative = diff / m;
+        double logRatio = Double.isFinite(relative) ? Math.log1p(relative) : Math.log(x) - Math.log(m);
+        return x * logRatio - diff;
     }
 
     /**
@@ -71,13 +80,22 @@ final class ProbabilityMath {
      * where q = 1 - p is passed separately so that it keeps its own precision.
      */
     static double logBinomialTerm(double x, double n, double p, double q) {
+        return logBinomialTerm(x, n, n - x, p, q);
+    }
+
+    /**
+     * As {@link #logBinomialTerm(double, double, double, double)} with n - x supplied by the caller,
+     * who may know it exactly when n - x is small and n large (the negative binomial count y out of
+     * y + theta trials, theta = 1e12).
+     */
+    static double logBinomialTerm(double x, double n, double nMinusX, double p, double q) {
         if (p == 0.0) {
             return x == 0.0 ? 0.0 : Double.NEGATIVE_INFINITY;
         }
         if (q == 0.0) {
-            return x == n ? 0.0 : Double.NEGATIVE_INFINITY;
+            return nMinusX == 0.0 ? 0.0 : Double.NEGATIVE_INFINITY;
         }
-        if (x < 0 || x > n) {
+        if (x < 0 || nMinusX < 0) {
             return Double.NEGATIVE_INFINITY;
         }
         if (x == 0.0) {
@@ -86,12 +104,12 @@ final class ProbabilityMath {
             }
             return p < 0.1 ? -bd0(n, n * q) - n * p : n * Math.log(q);
         }
-        if (x == n) {
+        if (nMinusX == 0.0) {
             return q < 0.1 ? -bd0(n, n * p) - n * q : n * Math.log(p);
         }
-        double lc = stirlingRemainder(n) - stirlingRemainder(x) - stirlingRemainder(n - x)
-                - bd0(x, n * p) - bd0(n - x, n * q);
-        double lf = LOG_2PI + Math.log(x) + Math.log1p(-x / n);
+        double lc = stirlingRemainder(n) - stirlingRemainder(x) - stirlingRemainder(nMinusX)
+                - bd0(x, n * p) - bd0(nMinusX, n * q);
+        double lf = LOG_2PI + Math.log(x) + Math.log(nMinusX) - Math.log(n);
         return lc - 0.5 * lf;
     }
 

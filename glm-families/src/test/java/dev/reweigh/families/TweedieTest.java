@@ -1,0 +1,178 @@
+package dev.reweigh.families;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+
+import net.jqwik.api.Arbitraries;
+import net.jqwik.api.Assume;
+import net.jqwik.api.Arbitrary;
+import net.jqwik.api.ForAll;
+import net.jqwik.api.Property;
+import net.jqwik.api.Provide;
+import org.apache.commons.math3.analysis.UnivariateFunction;
+import org.apache.commons.math3.analysis.integration.IterativeLegendreGaussIntegrator;
+import org.apache.commons.math3.distribution.GammaDistribution;
+import org.apache.commons.math3.distribution.PoissonDistribution;
+import org.junit.jupiter.api.Test;
+
+/**
+ * The Tweedie family with 1 &lt; p &lt; 2 as the compound Poisson-Gamma distribution: N ~ Poisson with
+ * lambda = mu^(2-p) / (phi (2-p)) and N Gamma summands of shape (2-p)/(p-1) and scale
+ * phi (p-1) mu^(p-1) (the representation used by P. K. Dunn and G. K. Smyth, 2005, "Series
+ * evaluation of Tweedie exponential dispersion model densities", Statistics and Computing 15,
+ * 267-280, section 2). The reference densities are Commons Math's PoissonDistribution and
+ * GammaDistribution, summed term by term.
+ */
+class TweedieTest {
+
+    /**
+     * The mixture density at y &gt; 0 summed directly from Commons Math distributions. The terms use
+     * their logDensity and logProbability methods: Commons Math 3.6.1's GammaDistribution.density
+     * returns 0 for some shapes (observed at shape 152, scale 0.0089, y = 0.86, where the log-density
+     * is -11.8), which would silently drop terms.
+     */
+    static double mixtureDensity(double y, double mu, double phi, double p) {
+        double lambda = Math.pow(mu, 2 - p) / (phi * (2 - p));
+        double shape = (2 - p) / (p - 1);
+        double scale = phi * (p - 1) * Math.pow(mu, p - 1);
+        // No random generator: only densities are needed, and seeding one per distribution is costly.
+        PoissonDistribution count = new PoissonDistribution(null, lambda,
+                PoissonDistribution.DEFAULT_EPSILON, PoissonDistribution.DEFAULT_MAX_ITERATIONS);
+        double jStar = Math.pow(y, 2 - p) / (phi * (2 - p));
+        double sum = 0;
+        double largest = 0;
+        for (int j = 1; j < 200_000; j++) {
+            double term = Math.exp(count.logProbability(j) + new GammaDistribution(null, shape * j, scale).logDensity(y));
+            sum += term;
+            largest = Math.max(largest, term);
+            if (j > Math.max(lambda, jStar) + 20 && term < 1e-20 * largest) {
+                break;
+            }
+        }
+        return sum;
+    }
+
+    @Provide
+    Arbitrary<double[]> cases() {
+        return Arbitraries.of(0).flatMap(ignored -> net.jqwik.api.Combinators.combine(
+                FamilyCase.uniform(1.05, 1.95), FamilyCase.logUniform(-1, 1), FamilyCase.logUniform(-0.7, 0.7),
+                FamilyCase.logUniform(-2, 1.3)).as((p, mu, phi, y) -> new double[] {p, mu, phi, y}));
+    }
+
+    @Property(tries = 200)
+    void densityEqualsThePoissonGammaMixture(@ForAll("cases") double[] c) {
+        double p = c[0];
+        double mu = c[1];
+        double phi = c[2];
+        double y = c[3];
+        double reference = mixtureDensity(y, mu, phi, p);
+        // Far in the tail the reference underflows to 0; there is nothing to compare against.
+        Assume.that(reference > 1e-280);
+        double ours = Families.tweedie(p).logDensity(y, mu, phi, 1.0);
+        // Compared on the log scale: 1e-10 absolute in log f is 1e-10 relative in f. Deep in the tail
+        // (log f = -150) each reference term exp(-150 + ...) carries a rounding error of about
+        // 1e-16 |log f| relative, so the tolerance grows with |log f|.
+        assertEquals(Math.log(reference), ours, 1e-10 * Math.max(1.0, Math.abs(ours)),
+                () -> "p=" + p + " mu=" + mu + " phi=" + phi + " y=" + y);
+    }
+
+    @Test
+    void smallDispersionWithManySeriesTermsStillMatchesTheMixture() {
+        // j* = y^(2-p) / (phi (2-p)) is about 4500 here, so the series is summed on a lattice.
+        for (double y : new double[] {4.0, 5.0, 6.2}) {
+            double reference = mixtureDensity(y, 5.0, 1e-3, 1.5);
+            assertEquals(Math.log(reference), Families.tweedie(1.5).logDensity(y, 5.0, 1e-3, 1.0), 1e-9, "y=" + y);
+        }
+    }
+
+    @Test
+    void massAtZeroIsThePoissonProbabilityOfNoClaims() {
+        for (double p : new double[] {1.1, 1.5, 1.9}) {
+            for (double mu : new double[] {0.05, 1.0, 20.0}) {
+                double phi = 1.7;
+                double expected = Math.exp(-Math.pow(mu, 2 - p) / (phi * (2 - p)));
+                Family f = Families.tweedie(p);
+                assertEquals(expected, Math.exp(f.logDensity(0.0, mu, phi, 1.0)), 1e-15 * expected);
+                assertEquals(expected, f.cumulativeProbability(0.0, mu, phi, 1.0), 1e-15 * expected);
+                // Reference: Commons Math PoissonDistribution, P(N = 0).
+                double lambda = Math.pow(mu, 2 - p) / (phi * (2 - p));
+                assertEquals(new PoissonDistribution(lambda).probability(0), expected, 1e-14 * expected);
+            }
+        }
+    }
+
+    /**
+     * Integral of g over (0, upper]. For alpha = (2-p)/(p-1) &lt; 1 (p &gt; 1.5) the density behaves
+     * like y^(alpha-1) near zero, unbounded; the substitution y = s^(1/alpha) turns it into a
+     * bounded, smooth integrand. For alpha &gt;= 1 the density is bounded and is integrated in y
+     * directly (the substitution would make exp(-y/scale) non-smooth at s = 0). The panels are
+     * the images of 100 equal panels in y, so that the bulk of the distribution is spread over
+     * many panels.
+     */
+    static double integrate(UnivariateFunction g, double p, double upper) {
+        double alpha = (2 - p) / (p - 1);
+        double k = alpha < 1 ? alpha : 1.0;
+        IterativeLegendreGaussIntegrator integrator = new IterativeLegendreGaussIntegrator(8, 1e-12, 1e-16);
+        UnivariateFunction onS = s -> {
+            double y = Math.pow(s, 1 / k);
+            return g.value(y) * y / (k * s);
+        };
+        int panels = 100;
+        double sum = 0;
+        for (int i = 0; i < panels; i++) {
+            double from = Math.pow(upper * i / panels, k);
+            double to = Math.pow(upper * (i + 1) / panels, k);
+            sum += integrator.integrate(1_000_000, onS, from, to);
+        }
+        return sum;
+    }
+
+    @Provide
+    Arbitrary<double[]> moments() {
+        return net.jqwik.api.Combinators.combine(Arbitraries.of(1.1, 1.3, 1.5, 1.7, 1.9), Arbitraries.of(0.5, 2.0, 10.0),
+                Arbitraries.of(0.3, 1.0, 3.0)).as((p, mu, phi) -> new double[] {p, mu, phi});
+    }
+
+    @Property(tries = 10)
+    void densityWithTheAtomIntegratesToOneWithMeanMuAndVariancePhiMuToThePower(@ForAll("moments") double[] c) {
+        double p = c[0];
+        double mu = c[1];
+        double phi = c[2];
+        Family f = Families.tweedie(p);
+        double sd = Math.sqrt(phi * Math.pow(mu, p));
+        double gammaScale = phi * (p - 1) * Math.pow(mu, p - 1);
+        double upper = mu + 40 * sd + 80 * gammaScale;
+        double atom = Math.exp(f.logDensity(0, mu, phi, 1.0));
+        double total = atom + integrate(y -> Math.exp(f.logDensity(y, mu, phi, 1.0)), p, upper);
+        double mean = integrate(y -> y * Math.exp(f.logDensity(y, mu, phi, 1.0)), p, upper);
+        double second = mu * mu * atom + integrate(y -> (y - mu) * (y - mu) * Math.exp(f.logDensity(y, mu, phi, 1.0)), p, upper);
+        assertEquals(1.0, total, 1e-9, "total probability");
+        assertEquals(mu, mean, 1e-9 * mu, "mean");
+        assertEquals(phi * Math.pow(mu, p), second, 1e-8 * phi * Math.pow(mu, p), "variance");
+        for (double q : new double[] {0.5, 1.0, 3.0}) {
+            double y = q * mu;
+            double cdf = atom + integrate(t -> Math.exp(f.logDensity(t, mu, phi, 1.0)), p, y);
+            assertEquals(cdf, f.cumulativeProbability(y, mu, phi, 1.0), 1e-9, "F at " + y);
+        }
+    }
+
+    @Test
+    void priorWeightDividesTheDispersion() {
+        Family f = Families.tweedie(1.4);
+        assertEquals(f.logDensity(2.5, 1.2, 0.5, 1.0), f.logDensity(2.5, 1.2, 1.5, 3.0), 1e-13);
+        assertEquals(f.logDensity(0.0, 1.2, 0.5, 1.0), f.logDensity(0.0, 1.2, 1.5, 3.0), 1e-15);
+        assertEquals(f.cumulativeProbability(2.5, 1.2, 0.5, 1.0), f.cumulativeProbability(2.5, 1.2, 1.5, 3.0), 1e-14);
+    }
+
+    @Test
+    void powersOutsideTheCompoundPoissonRangeAreRejectedOrMapped() {
+        assertEquals(Families.gaussian(), Families.tweedie(0));
+        assertEquals(Families.poisson(), Families.tweedie(1));
+        assertEquals(Families.gamma(), Families.tweedie(2));
+        assertEquals(Families.inverseGaussian(), Families.tweedie(3));
+        for (double bad : new double[] {0.5, 2.5, -1, 4, Double.NaN, Double.POSITIVE_INFINITY}) {
+            ReweighException e = org.junit.jupiter.api.Assertions.assertThrows(ReweighException.class,
+                    () -> Families.tweedie(bad));
+            org.junit.jupiter.api.Assertions.assertTrue(e.getMessage().contains("strictly between 1 and 2"), e.getMessage());
+        }
+    }
+}
