@@ -21,9 +21,12 @@ class IllConditionedPolynomialTest {
         -10.8753, -1.06221, -0.0670191, -0.00246781, -0.0000402963};
 
     @ParameterizedTest
-    @CsvSource({"10, -9, -3, 82, 1", "10, -9, -3, 82, 2", "8, -9, -3, 60, 3", "10, -8.8, -3.1, 82, 4",
-        "6, 0, 20, 21, 5", "10, 3, 9, 82, 6"})
-    void recoversTheExactSolution(int degree, double lo, double hi, int n, long seed) {
+    @CsvSource({"10, -9, -3, 82, 1, 0.0033, false", "10, -9, -3, 82, 2, 0.0033, false",
+        "8, -9, -3, 60, 3, 0.0033, false", "10, -8.8, -3.1, 82, 4, 0.0033, false", "6, 0, 20, 21, 5, 0.0033, false",
+        "10, 3, 9, 82, 6, 0.0033, false",
+        // like the NIST Wampler problems: 1 + x + ... + x^5 on 0..20 with small and very large noise
+        "5, 0, 20, 21, 7, 236, true", "5, 0, 20, 21, 8, 23600, true", "5, 0, 20, 21, 9, 1e-3, true"})
+    void recoversTheExactSolution(int degree, double lo, double hi, int n, long seed, double noise, boolean ones) {
         Random rnd = new Random(seed);
         double[] x = new double[n];
         double[] y = new double[n];
@@ -32,9 +35,9 @@ class IllConditionedPolynomialTest {
             x[i] = Math.round((lo + (hi - lo) * rnd.nextDouble()) * 1e9) / 1e9;
             double v = 0;
             for (int k = Math.min(degree, SHAPE.length - 1); k >= 0; k--) {
-                v = v * x[i] + SHAPE[k];
+                v = v * x[i] + (ones ? 1.0 : SHAPE[k]);
             }
-            y[i] = v + 0.0033 * rnd.nextGaussian();
+            y[i] = v + noise * rnd.nextGaussian();
         }
         ExactLeastSquares exact = ExactLeastSquares.fit(ExactLeastSquares.polynomial(x, degree), y);
         Table t = Table.builder().numeric("x", x).numeric("y", y).build();
