@@ -1,0 +1,163 @@
+package dev.reweigh.core.artifact;
+
+import dev.reweigh.core.FittedModel;
+import dev.reweigh.core.Glm;
+import dev.reweigh.core.ModelArtifact;
+import dev.reweigh.core.ModelSpec;
+import dev.reweigh.core.Scorer;
+import dev.reweigh.core.Scores;
+import dev.reweigh.core.Table;
+import dev.reweigh.core.UnseenLevelException;
+import dev.reweigh.families.Families;
+import dev.reweigh.families.Links;
+import dev.reweigh.families.ReweighException;
+import net.jqwik.api.ForAll;
+import net.jqwik.api.Property;
+import net.jqwik.api.constraints.IntRange;
+import org.apache.commons.math3.distribution.NormalDistribution;
+import org.junit.jupiter.api.Test;
+
+import java.util.List;
+import java.util.Map;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+class ScorerTest {
+
+    private static Table withRegions(String... regions) {
+        Portfolio p = new Portfolio(regions.length, 5);
+        return Table.builder()
+                .categorical("region", regions)
+                .categorical("vehicle", p.vehicle)
+                .numeric("age", p.age)
+                .numeric("value", p.value)
+                .numeric("exposure", p.exposure)
+                .build();
+    }
+
+    @Test
+    void unseenLevelIsAnErrorNamingColumnRowAndLevel() {
+        Table t = withRegions("North", "South", "Atlantis", "East");
+        UnseenLevelException e = assertThrows(UnseenLevelException.class, () -> Fixtures.ARTIFACT.scorer().score(t));
+        assertEquals("region", e.column());
+        assertEquals(2, e.row());
+        assertEquals("Atlantis", e.name());
+        assertTrue(e.getMessage().contains("'region'") && e.getMessage().contains("row 2")
+                && e.getMessage().contains("Atlantis") && e.getMessage().contains("North"), e.getMessage());
+    }
+
+    @Test
+    void unseenLevelCanBeScoredAtTheReferenceWithAFlag() {
+        Scorer s = Fixtures.ARTIFACT.scorerBuilder().unseenLevelsAtReference(true).build();
+        String reference = Fixtures.ARTIFACT.spec().terms().get(0).referenceLevel().orElseThrow();
+        Table unseen = withRegions("North", "Atlantis", "South", "Lemuria");
+        Table atReference = withRegions("North", reference, "South", reference);
+        Scores a = s.score(unseen);
+        Scores b = s.score(atReference);
+        ArtifactRoundTripTest.assertBits(b.link(), a.link(), "unseen levels score as the reference level");
+        assertEquals(List.of(false, true, false, true), List.of(a.usedReferenceLevel(0), a.usedReferenceLevel(1),
+                a.usedReferenceLevel(2), a.usedReferenceLevel(3)));
+        assertEquals(2, a.referenceFallbackCount());
+        assertEquals(0, b.referenceFallbackCount());
+        boolean[] flags = new boolean[4];
+        double[] out = new double[4];
+        s.scoreMean(unseen, out, flags);
+        assertTrue(flags[1] && flags[3] && !flags[0] && !flags[2]);
+        assertTrue(s.scoreRow(rowOf(unseen, 1)).usedReferenceLevel(0));
+    }
+
+    private static Map<String, Object> rowOf(Table t, int i) {
+        return Map.of("region", t.value("region", i), "vehicle", t.value("vehicle", i),
+                "age", t.numeric("age")[i], "value", t.numeric("value")[i], "exposure", t.numeric("exposure")[i]);
+    }
+
+    @Test
+    void deltaMethodIntervalMatchesAnIndependentComputation() {
+        FittedModel fit = Fixtures.FIT;
+        Scorer s = fit.scorerBuilder().intervalLevel(0.9).build();
+        Table t = Fixtures.FRESH_TABLE;
+        Scores sc = s.score(t);
+        double[][] x = fit.modelMatrix(t);
+        double[][] c = fit.unscaledCovariance();
+        double[] eta = fit.predictLink(t);
+        // two-sided 90%: z = 1.6448536..., Commons Math NormalDistribution as the reference
+        double z = new NormalDistribution().inverseCumulativeProbability(0.95);
+        for (int i = 0; i < 50; i++) {
+            double q = 0;
+            for (int a = 0; a < x[i].length; a++) {
+                for (int b = 0; b < x[i].length; b++) {
+                    q += x[i][a] * c[a][b] * x[i][b];
+                }
+            }
+            double mu = Math.exp(eta[i]);
+            double se = mu * Math.sqrt(q);   // Poisson: dispersion 1, dmu/deta = mu for the log link
+            assertEquals(se, sc.standardError()[i], 1e-10 * se);
+            assertEquals(mu - z * se, sc.lower(i), 1e-10 * mu);
+            assertEquals(mu + z * se, sc.upper(i), 1e-10 * mu);
+        }
+        assertFalse(fit.scorer().score(t).hasIntervals());
+        assertThrows(IllegalStateException.class, () -> fit.scorer().score(t).lower());
+    }
+
+    @Test
+    void intervalsUseTheCallersDispersion() {
+        Scores one = Fixtures.ARTIFACT.scorerBuilder().intervalLevel(0.95).build().score(Fixtures.FRESH_TABLE);
+        Scores four = Fixtures.ARTIFACT.scorerBuilder().intervalLevel(0.95).dispersion(4).build()
+                .score(Fixtures.FRESH_TABLE);
+        for (int i = 0; i < 20; i++) {
+            assertEquals(2 * one.standardError()[i], four.standardError()[i], 1e-12 * four.standardError()[i]);
+        }
+    }
+
+    @Test
+    void intervalsWithoutADispersionAreRefused() {
+        Table t = Table.builder().numeric("y", 1, 2, 4).numeric("x", 1, 2, 3).categorical("g", "a", "b", "c").build();
+        FittedModel exact = Glm.fit(ModelSpec.builder("y").factor("g").build(), t);
+        assertTrue(Double.isNaN(ModelArtifact.of(exact).dispersion()), "no residual df: no Pearson estimate");
+        ReweighException e = assertThrows(ReweighException.class,
+                () -> exact.scorerBuilder().intervalLevel(0.95).build());
+        assertTrue(e.getMessage().contains("dispersion"), e.getMessage());
+        assertEquals(3, exact.scorerBuilder().intervalLevel(0.95).dispersion(1.0).build().score(t).rowCount());
+    }
+
+    @Test
+    void inputColumnsAreTheTermsThenTheOffsets() {
+        assertEquals(List.of("region", "vehicle", "age", "value", "exposure"), Fixtures.ARTIFACT.scorer()
+                .inputColumns());
+    }
+
+    @Test
+    void logitMeansAreProbabilities() {
+        Portfolio p = new Portfolio(400, 44);
+        FittedModel fit = Glm.fit(ModelSpec.builder("k").trials("trials").family(Families.binomial())
+                .link(Links.logit()).factor("region").numeric("age").build(), p.table("k", p.response("binomial",
+                false)));
+        double[] mu = new double[Fixtures.FRESH.rows];
+        fit.scorer().scoreMean(Fixtures.FRESH.columns(), mu);
+        for (double m : mu) {
+            assertTrue(m > 0 && m < 1);
+        }
+    }
+
+    /** Rows scored one by one, in arrays, or as a table agree bit for bit, whatever the batch. */
+    @Property(tries = 50)
+    void batchBoundariesDoNotMatter(@ForAll @IntRange(min = 0, max = 1999) int from,
+            @ForAll @IntRange(min = 1, max = 200) int count) {
+        int to = Math.min(2000, from + count);
+        int[] rows = new int[to - from];
+        for (int i = 0; i < rows.length; i++) {
+            rows[i] = from + i;
+        }
+        Scorer s = Fixtures.ARTIFACT.scorer();
+        double[] all = s.score(Fixtures.FRESH_TABLE).mean();
+        double[] part = s.score(Fixtures.FRESH_TABLE.select(rows)).mean();
+        for (int i = 0; i < rows.length; i++) {
+            assertEquals(Double.doubleToRawLongBits(all[from + i]), Double.doubleToRawLongBits(part[i]));
+            assertEquals(Double.doubleToRawLongBits(all[from + i]),
+                    Double.doubleToRawLongBits(s.mean(Fixtures.FRESH.row(from + i))));
+        }
+    }
+}
