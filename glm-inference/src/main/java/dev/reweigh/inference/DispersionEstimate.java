@@ -68,12 +68,12 @@ public final class DispersionEstimate {
                 throw new IllegalArgumentException("a known dispersion needs its value: use DispersionEstimate.known(phi)"
                         + " or Inference.withKnownDispersion(phi)");
             case PEARSON: {
-                double[] m = DispersionMath.moment(DispersionMath.pearsonContributions(d), fit.residualDf(),
+                double[] m = DispersionMath.moment(d, DispersionMath.pearsonContributions(d), fit.residualDf(),
                         "Pearson chi-square");
                 return new DispersionEstimate(method, m[0], m[1], d, fit.residualDf());
             }
             case DEVIANCE: {
-                double[] m = DispersionMath.moment(DispersionMath.devianceContributions(d), fit.residualDf(),
+                double[] m = DispersionMath.moment(d, DispersionMath.devianceContributions(d), fit.residualDf(),
                         "deviance");
                 return new DispersionEstimate(method, m[0], m[1], d, fit.residualDf());
             }

@@ -60,12 +60,27 @@ public final class Inference {
      * @param fit the fitted model
      * @return the inference
      * @throws ReweighException when the dispersion is free and the model has no residual degrees
-     *     of freedom
+     *     of freedom (use {@link #of(FittedModel, DispersionEstimate)} with a known value then)
      * @since 0.1
      */
     public static Inference of(FittedModel fit) {
         Objects.requireNonNull(fit, "fit");
         return new Inference(fit, ModelData.of(fit), DispersionEstimate.defaultFor(fit), DEFAULT_LEVEL);
+    }
+
+    /**
+     * Starts inference on a fitted model with a dispersion chosen beforehand, e.g.
+     * {@code DispersionEstimate.known(1.0)} for a model with no residual degrees of freedom.
+     *
+     * @param fit the fitted model
+     * @param dispersion the dispersion to use
+     * @return the inference, at the 95% level
+     * @since 0.1
+     */
+    public static Inference of(FittedModel fit, DispersionEstimate dispersion) {
+        Objects.requireNonNull(fit, "fit");
+        Objects.requireNonNull(dispersion, "dispersion");
+        return new Inference(fit, ModelData.of(fit), dispersion, DEFAULT_LEVEL);
     }
 
     /**

@@ -93,6 +93,19 @@ class PredictionAndSummaryTest {
     }
 
     @Test
+    void groupSummaryOfACorrectGammaModelMatchesObservedSpread() {
+        // Gamma severities with shape 2: per vehicle class (about 400 rows each) the observed standard deviation
+        // should agree with the fitted one within sampling error (relative sd of a sample sd here is about 0.08;
+        // the tolerance is 30%, fixed seed)
+        FittedModel fit = DispersionTest.gammaFit(TestData.gammaSeverities(1200, 2.0, 163));
+        for (LevelSummary s : Inference.of(fit).groupSummary("vehicle").levels()) {
+            assertEquals(s.fittedStandardDeviation(), s.observedStandardDeviation(), 0.3 * s.fittedStandardDeviation(),
+                    s.toString());
+            assertEquals(s.fittedMean(), s.observedMean(), 0.1 * s.fittedMean(), s.toString());
+        }
+    }
+
+    @Test
     void goodnessOfFitSaysWhereTheChiSquareReferenceIsNotMeaningful() {
         GoodnessOfFit grouped = Inference.of(ReferenceDataTest.beetles(Links.logit())).goodnessOfFit();
         assertTrue(grouped.isMeaningful());

@@ -129,6 +129,36 @@ class ResidualPropertiesTest {
     }
 
     @Test
+    void randomizedQuantileResidualsHandleTheTweedieAtomAtZero() {
+        // compound Poisson-Gamma premiums (power 1.5, dispersion 20: about 1 claim per row) have an atom at zero: zero responses draw u
+        // uniformly below P(Y = 0), so the residuals are still standard normal for the right model (KS test from
+        // Commons Math at the 0.1% level, fixed seeds)
+        Table premiums = TestData.compoundPoissonPremiums(600, 1.5, 20.0, 151);
+        long zeros = java.util.Arrays.stream(premiums.numeric("premium")).filter(v -> v == 0).count();
+        assertTrue(zeros > 30, "zeros " + zeros);
+        FittedModel fit = Glm.fit(ModelSpec.builder("premium").family(Families.tweedie(1.5)).link(Links.log())
+                .factor("vehicle", "hatchback").numeric("age").build(), premiums);
+        double[] q = Inference.of(fit).withDispersion(DispersionMethod.MAXIMUM_LIKELIHOOD).residuals().withSeed(3)
+                .randomizedQuantile();
+        double p = new KolmogorovSmirnovTest().kolmogorovSmirnovTest(new NormalDistribution(), q);
+        assertTrue(p > 1e-3, "KS p-value " + p);
+        // with the atom ignored (u = P(Y = 0) for every zero) the residuals pile up at one value
+        double[] y = fit.response();
+        double first = Double.NaN;
+        int same = 0;
+        for (int i = 0; i < y.length; i++) {
+            if (y[i] == 0) {
+                if (Double.isNaN(first)) {
+                    first = q[i];
+                } else if (q[i] == first) {
+                    same++;
+                }
+            }
+        }
+        assertEquals(0, same);
+    }
+
+    @Test
     void randomizedQuantileResidualsOfAWrongFamilyAreNotStandardNormal() {
         // the same KS test has power against a misspecified family: negative binomial counts with theta 0.5
         // fitted as Poisson show far too many extreme residuals

@@ -59,25 +59,32 @@ public final class DispersionMath {
     /**
      * A moment estimate: the sum of the contributions over the residual degrees of freedom.
      *
+     * @param d the model data (for which rows are informative)
      * @param contributions row contributions
      * @param residualDf residual degrees of freedom
      * @param what the statistic's name for messages
      * @return {estimate, empirical standard error}
      */
-    public static double[] moment(double[] contributions, int residualDf, String what) {
+    public static double[] moment(ModelData d, double[] contributions, int residualDf, String what) {
         if (residualDf <= 0) {
             throw new ReweighException("the dispersion cannot be estimated from the " + what
                     + ": the model has " + residualDf + " residual degrees of freedom; it needs at least 1");
         }
+        // rows with zero prior weight contribute exactly 0 and are not observations
         double sum = 0;
-        for (double c : contributions) {
-            sum += c;
+        int n = 0;
+        for (int i = 0; i < contributions.length; i++) {
+            if (d.priorWeight(i) > 0) {
+                sum += contributions[i];
+                n++;
+            }
         }
-        int n = contributions.length;
-        double mean = sum / n;
+        double mean = n > 0 ? sum / n : 0;
         double ss = 0;
-        for (double c : contributions) {
-            ss += (c - mean) * (c - mean);
+        for (int i = 0; i < contributions.length; i++) {
+            if (d.priorWeight(i) > 0) {
+                ss += (contributions[i] - mean) * (contributions[i] - mean);
+            }
         }
         double variance = n > 1 ? ss / (n - 1) : 0;
         return new double[] {sum / residualDf, Math.sqrt(n * variance) / residualDf};
