@@ -33,7 +33,7 @@ import org.apache.commons.math3.special.Gamma;
  */
 public final class NegativeBinomialTheta {
     private static final int MAX_ROUNDS = 50;
-    private static final double TOLERANCE = 1e-8;
+    private static final double TOLERANCE = 1e-6;
     private static final double THETA_MIN = 1e-6;
     private static final double THETA_MAX = 1e8;
 
@@ -198,7 +198,7 @@ public final class NegativeBinomialTheta {
     }
 
     /**
-     * Tells whether theta settled to the tolerance (relative change 1e-8).
+     * Tells whether theta settled to the tolerance (relative change 1e-6).
      *
      * @return true when converged
      * @since 0.1

@@ -27,6 +27,9 @@ import java.util.function.DoubleUnaryOperator;
  * @since 0.1
  */
 public final class TweediePowerProfile {
+    /** Powers closer than this are not told apart: each profile point is a refit. */
+    private static final double POWER_TOLERANCE = 1e-4;
+
     private final double[] gridPowers;
     private final double[] gridLogLikelihoods;
     private final double power;
@@ -100,7 +103,7 @@ public final class TweediePowerProfile {
             double v = profile.applyAsDouble(p);
             return Double.isNaN(v) ? Double.NEGATIVE_INFINITY : v;
         };
-        double[] refined = Roots.maximise(safe, lo, hi, powers[best]);
+        double[] refined = Roots.maximise(safe, lo, hi, powers[best], POWER_TOLERANCE);
         double p = refined[1] >= values[best] ? refined[0] : powers[best];
         ModelData d = profileAt(start, p);
         double phi = DispersionMath.maximumLikelihood(d);
@@ -190,8 +193,8 @@ public final class TweediePowerProfile {
         Interval.checkLevel(level);
         double cut = Distributions.chiSquareQuantile(level, 1) / 2;
         DoubleUnaryOperator drop = p -> logLikelihood - profile.applyAsDouble(p) - cut;
-        double lo = drop.applyAsDouble(lowerPower) > 0 ? Roots.solve(drop, lowerPower, power, 1e-6) : lowerPower;
-        double hi = drop.applyAsDouble(upperPower) > 0 ? Roots.solve(drop, power, upperPower, 1e-6) : upperPower;
+        double lo = drop.applyAsDouble(lowerPower) > 0 ? Roots.solve(drop, lowerPower, power, POWER_TOLERANCE) : lowerPower;
+        double hi = drop.applyAsDouble(upperPower) > 0 ? Roots.solve(drop, power, upperPower, POWER_TOLERANCE) : upperPower;
         return Interval.of(Double.isNaN(lo) ? lowerPower : lo, Double.isNaN(hi) ? upperPower : hi, level);
     }
 

@@ -124,10 +124,12 @@ public final class Roots {
      * @param lower lower end
      * @param upper upper end
      * @param start a point inside the interval
+     * @param absoluteTolerance how precisely the maximiser is wanted
      * @return the maximiser and the maximum as {point, value}
      */
-    public static double[] maximise(DoubleUnaryOperator f, double lower, double upper, double start) {
-        BrentOptimizer optimizer = new BrentOptimizer(1e-10, 1e-12);
+    public static double[] maximise(DoubleUnaryOperator f, double lower, double upper, double start,
+                                    double absoluteTolerance) {
+        BrentOptimizer optimizer = new BrentOptimizer(1e-10, absoluteTolerance);
         UnivariatePointValuePair best = optimizer.optimize(new MaxEval(MAX_EVALUATIONS),
                 new UnivariateObjectiveFunction(f::applyAsDouble), GoalType.MAXIMIZE,
                 new SearchInterval(lower, upper, Math.min(Math.max(start, lower), upper)));
@@ -180,7 +182,8 @@ public final class Roots {
             fhi = fn;
             step *= 2;
         }
-        double[] best = maximise(g, lo, hi, centre);
+        // 1e-8 on the log scale: the parameter to eight significant digits
+        double[] best = maximise(g, lo, hi, centre, 1e-8);
         return new double[] {Math.exp(best[0]), best[1]};
     }
 }
