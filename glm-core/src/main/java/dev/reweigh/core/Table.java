@@ -1,5 +1,7 @@
 package dev.reweigh.core;
 
+import dev.reweigh.families.InvalidDataException;
+import dev.reweigh.families.ReweighException;
 import dev.reweigh.families.UnknownNameException;
 
 import java.math.BigDecimal;
@@ -124,7 +126,7 @@ public final class Table {
      * @param column a numeric column
      * @return a new array of length {@link #rowCount()}
      * @throws UnknownNameException when the column does not exist
-     * @throws IllegalArgumentException when the column is categorical
+     * @throws ReweighException when the column is categorical
      * @since 0.1
      */
     public double[] numeric(String column) {
@@ -137,7 +139,7 @@ public final class Table {
      * @param column a categorical column
      * @return an immutable list of levels
      * @throws UnknownNameException when the column does not exist
-     * @throws IllegalArgumentException when the column is numeric
+     * @throws ReweighException when the column is numeric
      * @since 0.1
      */
     public List<String> levels(String column) {
@@ -151,7 +153,7 @@ public final class Table {
      * @param column a categorical column
      * @return a new array of length {@link #rowCount()}
      * @throws UnknownNameException when the column does not exist
-     * @throws IllegalArgumentException when the column is numeric
+     * @throws ReweighException when the column is numeric
      * @since 0.1
      */
     public int[] codes(String column) {
@@ -264,7 +266,7 @@ public final class Table {
     double[] numericView(String column) {
         Object c = get(column);
         if (!(c instanceof double[])) {
-            throw new IllegalArgumentException("column '" + column + "' is categorical, not numeric");
+            throw new ReweighException("column '" + column + "' is categorical, not numeric");
         }
         return (double[]) c;
     }
@@ -279,7 +281,7 @@ public final class Table {
     Categorical categorical(String column) {
         Object c = get(column);
         if (!(c instanceof Categorical)) {
-            throw new IllegalArgumentException("column '" + column + "' is numeric, not categorical");
+            throw new ReweighException("column '" + column + "' is numeric, not categorical");
         }
         return (Categorical) c;
     }
@@ -342,7 +344,7 @@ public final class Table {
          * @param name a new column name
          * @param values the column's values
          * @return this builder
-         * @throws IllegalArgumentException when the name is already used
+         * @throws ReweighException when the name is already used
          * @since 0.1
          */
         public Builder numeric(String name, double... values) {
@@ -358,7 +360,7 @@ public final class Table {
          * @param name a new column name
          * @param values the column's values as text
          * @return this builder
-         * @throws IllegalArgumentException when the name is already used
+         * @throws ReweighException when the name is already used
          * @since 0.1
          */
         public Builder categorical(String name, String... values) {
@@ -381,7 +383,7 @@ public final class Table {
          * @param levelOrder every level, in the order wanted, without duplicates
          * @param values the column's values as text
          * @return this builder
-         * @throws IllegalArgumentException when the name is already used or a level repeats
+         * @throws ReweighException when the name is already used or a level repeats
          * @throws UnknownNameException when a value is not in the level list
          * @since 0.1
          */
@@ -389,7 +391,8 @@ public final class Table {
             checkNew(name);
             List<String> levels = List.copyOf(levelOrder);
             if (levels.size() != new TreeSet<>(levels).size()) {
-                throw new IllegalArgumentException("column '" + name + "': the level list repeats a level: " + levels);
+                throw new ReweighException("column '" + name + "': the level list repeats a level: " + levels
+                        + "; expected distinct levels");
             }
             columns.put(name, encode(name, levels, values));
             return this;
@@ -418,7 +421,7 @@ public final class Table {
         private void checkNew(String name) {
             Objects.requireNonNull(name, "name");
             if (columns.containsKey(name)) {
-                throw new IllegalArgumentException("column '" + name + "' was already added");
+                throw new ReweighException("column '" + name + "' was already added; every column needs its own name");
             }
         }
 
@@ -426,32 +429,42 @@ public final class Table {
          * Builds the table.
          *
          * @return an immutable table
-         * @throws IllegalArgumentException when there is no column or the columns differ in length
+         * @throws ReweighException when there is no column
+         * @throws InvalidDataException when the columns differ in length (naming the column)
          *     (the message names each column's length)
          * @since 0.1
          */
         public Table build() {
             if (columns.isEmpty()) {
-                throw new IllegalArgumentException("a table needs at least one column");
+                throw new ReweighException("a table needs at least one column");
             }
             int n = -1;
             boolean equal = true;
+            String firstName = null;
+            String badName = null;
+            int badLength = 0;
             StringBuilder lengths = new StringBuilder();
             Map<String, Object> copy = new LinkedHashMap<>();
             for (Map.Entry<String, Object> e : columns.entrySet()) {
                 int len = e.getValue() instanceof double[] ? ((double[]) e.getValue()).length
                         : ((Categorical) e.getValue()).codes.length;
-                if (n >= 0 && len != n) {
+                if (n >= 0 && len != n && equal) {
                     equal = false;
+                    badName = e.getKey();
+                    badLength = len;
                 }
-                n = n < 0 ? len : n;
+                if (n < 0) {
+                    n = len;
+                    firstName = e.getKey();
+                }
                 lengths.append(lengths.length() == 0 ? "" : ", ").append(e.getKey()).append('=').append(len);
                 Object v = e.getValue() instanceof double[] ? ((double[]) e.getValue()).clone()
                         : new Categorical(((Categorical) e.getValue()).codes.clone(), ((Categorical) e.getValue()).levels);
                 copy.put(e.getKey(), v);
             }
             if (!equal) {
-                throw new IllegalArgumentException("columns differ in length: " + lengths);
+                throw new InvalidDataException(badName, -1, "length " + badLength, "length " + n + ", the length of"
+                        + " column '" + firstName + "' (every column has one value per row; lengths: " + lengths + ")");
             }
             return new Table(Collections.unmodifiableMap(copy), n);
         }

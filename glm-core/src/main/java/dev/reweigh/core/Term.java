@@ -116,12 +116,13 @@ public final class Term {
      * @param degree the highest power, at least 1
      * @param orthogonal true for orthogonal polynomials, false for raw powers
      * @return the term
-     * @throws IllegalArgumentException when degree is below 1
+     * @throws ModelSpecException when degree is below 1
      * @since 0.1
      */
     public static Term polynomial(String column, int degree, boolean orthogonal) {
         if (degree < 1) {
-            throw new IllegalArgumentException("polynomial degree must be at least 1, got " + degree);
+            throw new ModelSpecException("polynomial in column '" + column + "': degree " + degree
+                    + " is not valid; expected a whole number at least 1");
         }
         return new Term(Kind.POLYNOMIAL, Objects.requireNonNull(column, "column"), null, degree, orthogonal, null, null);
     }
