@@ -6,7 +6,8 @@ import java.util.OptionalDouble;
 /**
  * One model-matrix column's line in a {@link CoefficientTable}. An aliased column has no
  * estimate: {@link #isAliased()} is true, the numeric accessors return NaN and the intervals are
- * empty.
+ * empty. A column held fixed (a model from {@code FittedModel.refitWithFixed}) reports the held
+ * value as its estimate, {@link #isFixed()} is true, and the other numbers are NaN.
  *
  * @since 0.1
  */
@@ -20,8 +21,9 @@ public final class CoefficientRow {
     private final Interval waldInterval;
     private final Interval profileInterval;
     private final boolean logLink;
+    private final boolean fixed;
 
-    CoefficientRow(String name, boolean aliased, double estimate, double standardError, double statistic,
+    CoefficientRow(String name, boolean aliased, boolean fixed, double estimate, double standardError, double statistic,
                    double pValue, Interval waldInterval, Interval profileInterval, boolean logLink) {
         this.name = name;
         this.aliased = aliased;
@@ -32,6 +34,7 @@ public final class CoefficientRow {
         this.waldInterval = waldInterval;
         this.profileInterval = profileInterval;
         this.logLink = logLink;
+        this.fixed = fixed;
     }
 
     /**
@@ -55,9 +58,19 @@ public final class CoefficientRow {
     }
 
     /**
+     * Tells whether the coefficient was held at a given value rather than estimated.
+     *
+     * @return true for a column held fixed
+     * @since 0.1
+     */
+    public boolean isFixed() {
+        return fixed;
+    }
+
+    /**
      * Returns the estimate beta.
      *
-     * @return the estimate, NaN when aliased
+     * @return the estimate (the held value for a fixed column), NaN when aliased
      * @since 0.1
      */
     public double estimate() {
@@ -117,22 +130,22 @@ public final class CoefficientRow {
     /**
      * Returns the relativity exp(beta), the multiplicative effect on the mean under a log link.
      *
-     * @return the relativity, empty unless the link is log and the column is estimable
+     * @return the relativity, empty unless the link is log and the column is estimated
      * @since 0.1
      */
     public OptionalDouble relativity() {
-        return logLink && !aliased ? OptionalDouble.of(Math.exp(estimate)) : OptionalDouble.empty();
+        return logLink && !aliased && !fixed ? OptionalDouble.of(Math.exp(estimate)) : OptionalDouble.empty();
     }
 
     /**
      * Returns the interval of the relativity: exp of the profile interval when there is one, else
      * exp of the Wald interval.
      *
-     * @return the interval, empty unless the link is log and the column is estimable
+     * @return the interval, empty unless the link is log and the column is estimated
      * @since 0.1
      */
     public Optional<Interval> relativityInterval() {
-        if (!logLink || aliased) {
+        if (!logLink || aliased || fixed) {
             return Optional.empty();
         }
         return Optional.of(profileInterval != null ? profileInterval.exp() : waldInterval.exp());
@@ -148,6 +161,9 @@ public final class CoefficientRow {
     public String toString() {
         if (aliased) {
             return name + ": aliased, no estimate";
+        }
+        if (fixed) {
+            return name + ": held fixed at " + estimate;
         }
         return name + ": estimate " + estimate + ", std error " + standardError + ", statistic " + statistic
                 + ", p-value " + pValue + ", wald " + waldInterval

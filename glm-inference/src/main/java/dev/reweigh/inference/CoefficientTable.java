@@ -131,9 +131,10 @@ public final class CoefficientTable {
         for (CoefficientRow r : rows) {
             List<String> cells = new ArrayList<>();
             cells.add(r.name());
-            if (r.isAliased()) {
+            if (r.isAliased() || r.isFixed()) {
                 while (cells.size() < titles.size()) {
-                    cells.add(cells.size() == 1 ? "aliased" : "");
+                    cells.add(cells.size() == 1 ? (r.isAliased() ? "aliased" : TextTable.number(r.estimate()))
+                            : cells.size() == 2 && r.isFixed() ? "held fixed" : "");
                 }
             } else {
                 Interval w = r.waldInterval().orElseThrow();

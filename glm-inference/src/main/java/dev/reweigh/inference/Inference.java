@@ -220,7 +220,12 @@ public final class Inference {
         List<CoefficientRow> rows = new ArrayList<>();
         for (int j = 0; j < beta.length; j++) {
             if (fit.isAliased(j)) {
-                rows.add(new CoefficientRow(names.get(j), true, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
+                rows.add(new CoefficientRow(names.get(j), true, false, Double.NaN, Double.NaN, Double.NaN, Double.NaN,
+                        null, null, isLogLink()));
+                continue;
+            }
+            if (!Algebra.isEstimated(fit, j)) {
+                rows.add(new CoefficientRow(names.get(j), false, true, beta[j], Double.NaN, Double.NaN, Double.NaN,
                         null, null, isLogLink()));
                 continue;
             }
@@ -233,7 +238,7 @@ public final class Inference {
                 double[] ends = ProfileLikelihood.interval(fit, j, phi, q, se);
                 profile = Interval.of(ends[0], ends[1], level);
             }
-            rows.add(new CoefficientRow(names.get(j), false, beta[j], se, stat, p, wald, profile, isLogLink()));
+            rows.add(new CoefficientRow(names.get(j), false, false, beta[j], se, stat, p, wald, profile, isLogLink()));
         }
         return new CoefficientTable(rows, estimated ? ReferenceDistribution.T : ReferenceDistribution.NORMAL, df,
                 level, dispersion, isLogLink(), withProfile);
@@ -251,8 +256,9 @@ public final class Inference {
      */
     public Interval profileInterval(String columnName) {
         int j = columnIndex(columnName);
-        if (fit.isAliased(j)) {
-            throw new IllegalArgumentException("column '" + columnName + "' is aliased and has no estimate to profile");
+        if (!Algebra.isEstimated(fit, j)) {
+            throw new IllegalArgumentException("column '" + columnName + "' is aliased or held fixed and has no estimate"
+                    + " to profile");
         }
         double se = Math.sqrt(dispersion.value() * fit.unscaledCovariance()[j][j]);
         double[] ends = ProfileLikelihood.interval(fit, j, dispersion.value(), criticalValue(), se);
@@ -309,7 +315,7 @@ public final class Inference {
         List<String> columns = new ArrayList<>();
         List<String> names = fit.columnNames();
         for (int j = 0; j < names.size(); j++) {
-            if (!remaining.contains(names.get(j)) && !fit.isAliased(j)) {
+            if (!remaining.contains(names.get(j)) && Algebra.isEstimated(fit, j)) {
                 columns.add(names.get(j));
             }
         }
@@ -323,7 +329,7 @@ public final class Inference {
      * Tests the linear hypothesis L beta = c jointly.
      *
      * @param l the q by p hypothesis matrix (p = all model-matrix columns, aliased included; the
-     *     entries of aliased columns must be 0)
+     *     entries of aliased and fixed columns must be 0)
      * @param c the q right-hand sides
      * @return the Wald test
      * @throws IllegalArgumentException when the shapes do not match, an aliased column has a
@@ -348,9 +354,9 @@ public final class Inference {
                         + p + " columns " + fit.columnNames());
             }
             for (int j = 0; j < p; j++) {
-                if (fit.isAliased(j) && l[r][j] != 0) {
-                    throw new IllegalArgumentException("row " + r + " of L involves aliased column '"
-                            + fit.columnNames().get(j) + "', which has no estimate");
+                if (!Algebra.isEstimated(fit, j) && l[r][j] != 0) {
+                    throw new IllegalArgumentException("row " + r + " of L involves column '"
+                            + fit.columnNames().get(j) + "', which is aliased or held fixed and so has no estimate");
                 }
             }
             double s = -c[r];

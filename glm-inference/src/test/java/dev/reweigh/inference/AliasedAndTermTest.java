@@ -48,6 +48,24 @@ class AliasedAndTermTest {
     }
 
     @Test
+    void aColumnHeldFixedIsReportedAsFixedAndLeftOutOfTheEstimates() {
+        FittedModel ships = ReferenceDataTest.shipsMainEffects();
+        FittedModel held = ships.refitWithFixed("period=75", 0.5);
+        Inference inference = Inference.of(held);
+        CoefficientRow row = inference.coefficients().row("period=75");
+        assertTrue(row.isFixed());
+        assertEquals(0.5, row.estimate());
+        assertTrue(Double.isNaN(row.standardError()));
+        assertTrue(row.relativity().isEmpty());
+        assertTrue(inference.coefficients().toString().contains("held fixed"));
+        assertEquals(held.rank(), TestData.sum(inference.diagnostics().leverage()), 1e-9);
+        assertThrows(IllegalArgumentException.class, () -> inference.waldTest("period=75"));
+        // the other coefficients are estimated as usual
+        assertFalse(inference.coefficients().row("type=B").isFixed());
+        assertTrue(inference.coefficients().row("type=B").standardError() > 0);
+    }
+
+    @Test
     void termTestCoversEveryColumnOfTheTerm() {
         FittedModel ships = ReferenceDataTest.shipsMainEffects();
         Inference inference = Inference.of(ships);

@@ -15,21 +15,32 @@ public final class Algebra {
     }
 
     /**
-     * The indices of the non-aliased columns of a fitted model.
+     * The indices of the estimated columns of a fitted model: neither aliased nor held fixed.
      *
      * @param fit the model
      * @return indices in model order
      */
     public static int[] estimableColumns(FittedModel fit) {
         int p = fit.columnCount();
-        int[] idx = new int[fit.rank()];
+        int[] idx = new int[p];
         int k = 0;
-        for (int j = 0; j < p && k < idx.length; j++) {
-            if (!fit.isAliased(j)) {
+        for (int j = 0; j < p; j++) {
+            if (isEstimated(fit, j)) {
                 idx[k++] = j;
             }
         }
-        return idx;
+        return java.util.Arrays.copyOf(idx, k);
+    }
+
+    /**
+     * Tells whether a column's coefficient was estimated (not aliased, not held fixed).
+     *
+     * @param fit the model
+     * @param column the column index
+     * @return true when estimated
+     */
+    public static boolean isEstimated(FittedModel fit, int column) {
+        return !fit.isAliased(column) && !fit.fixedColumns().contains(fit.columnNames().get(column));
     }
 
     /**
