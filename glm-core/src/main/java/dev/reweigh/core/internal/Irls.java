@@ -84,6 +84,7 @@ public final class Irls {
             beta = options.startCoefficients().get();
         }
         double dev = deviance(mu);
+        double[] anchor = anchor();
 
         Solver solver = options.solver();
         boolean accurate = solver == Solver.PIVOTED_QR || (solver == Solver.AUTO && qrAffordable());
@@ -96,6 +97,12 @@ public final class Irls {
         double[] muNew = new double[n];
         boolean converged = false;
         boolean identityShortcut = isIdentity(link);
+        // Fisher scoring converges only linearly for non-canonical links, very slowly when the data
+        // are dispersed; Newton steps with the observed information converge quadratically.
+        boolean observedInformation = !isCanonical(family, link);
+        double[] wObs = new double[n];
+        double[] zObs = new double[n];
+        CholeskyRoute newtonRoute = null;
         int iter = 0;
         while (iter < options.maxIterations()) {
             if (Thread.interrupted()) {
@@ -103,6 +110,15 @@ public final class Irls {
                 throw new FitInterruptedException("the fit was interrupted at iteration " + (iter + 1));
             }
             iter++;
+            boolean newtonStep = false;
+            if (observedInformation && beta != null && observedWorkingValues(eta, mu, wObs, zObs)) {
+                if (newtonRoute == null) {
+                    newtonRoute = new CholeskyRoute(pr.x, CrossProducts.accumulator(options.threads()),
+                            options.rankTolerance());
+                    newtonRoute.setExcluded(excluded);
+                }
+                newtonStep = newtonRoute.solve(wObs, zObs, betaNew);
+            }
             workingValues(eta, mu, w, z, identityShortcut);
             if (excluded == null) {
                 excluded = route.decideExcluded(w, pr.candidates);
@@ -114,7 +130,9 @@ public final class Irls {
                     }
                 }
             }
-            if (!route.solve(w, z, betaNew)) {
+            if (newtonStep) {
+                // the Newton step is taken; the Fisher weights are kept for the covariance
+            } else if (!route.solve(w, z, betaNew)) {
                 if (route instanceof CholeskyRoute && (solver == Solver.AUTO) && qrAffordable()) {
                     route = switchToQr(excluded);
                     accurate = true;
@@ -132,28 +150,29 @@ public final class Irls {
                     throw numericalFailure(iter);
                 }
             }
-            // step-halving
+            // step-halving: towards the previous coefficients; in the first iteration (no previous
+            // coefficients) towards the intercept-only anchor if there is one, else in eta towards
+            // the starting linear predictor
             int halvings = 0;
             boolean fromBeta = beta != null;
-            double[] etaTarget = fromBeta ? null : new double[n];
-            if (!fromBeta) {
-                pr.x.multiply(betaNew, pr.offset, etaTarget);
-            }
+            double[] base = beta;
+            boolean devCheck = fromBeta;
+            double[] etaTarget = null;
             double devNew;
             boolean exhausted = false;
             while (true) {
-                if (fromBeta) {
+                if (base != null || halvings == 0) {
                     pr.x.multiply(betaNew, pr.offset, etaNew);
                 } else {
                     double t = Math.scalb(1.0, -halvings);
                     for (int i = 0; i < n; i++) {
-                        etaNew[i] = halvings == 0 ? etaTarget[i] : eta[i] + t * (etaTarget[i] - eta[i]);
+                        etaNew[i] = eta[i] + t * (etaTarget[i] - eta[i]);
                     }
                 }
                 boolean valid = means(etaNew, muNew);
                 devNew = valid ? deviance(muNew) : Double.NaN;
                 boolean ok = valid && Double.isFinite(devNew)
-                        && (!fromBeta || devNew <= dev + 1e-12 * (Math.abs(dev) + 1e-12));
+                        && (!devCheck || devNew <= dev + 1e-12 * (Math.abs(dev) + 1e-12));
                 if (ok) {
                     break;
                 }
@@ -161,10 +180,17 @@ public final class Irls {
                     exhausted = true;
                     break;
                 }
+                if (halvings == 0 && base == null) {
+                    if (anchor != null) {
+                        base = anchor;
+                    } else {
+                        etaTarget = etaNew.clone();
+                    }
+                }
                 halvings++;
-                if (fromBeta) {
+                if (base != null) {
                     for (int j = 0; j < p; j++) {
-                        betaNew[j] = 0.5 * (beta[j] + betaNew[j]);
+                        betaNew[j] = 0.5 * (base[j] + betaNew[j]);
                     }
                 }
             }
@@ -197,11 +223,11 @@ public final class Irls {
                 }
                 coefChange = num == 0 ? 0 : num / Math.max(den, Double.MIN_NORMAL);
             }
-            boolean fullStepFromStart = !fromBeta && halvings == 0;
+            boolean haveCoefficients = base != null || halvings == 0;
             System.arraycopy(etaNew, 0, eta, 0, n);
             System.arraycopy(muNew, 0, mu, 0, n);
             dev = devNew;
-            if (fromBeta || fullStepFromStart) {
+            if (haveCoefficients) {
                 beta = betaNew.clone();
             }
             emit(iter, dev, halvings, t0);
@@ -247,6 +273,46 @@ public final class Irls {
                 accurate ? "pivoted QR" : "Cholesky");
     }
 
+    /**
+     * Coefficients of the intercept-only model at the weighted mean response, when the design has
+     * an all-ones column and those coefficients give valid means everywhere; else null.
+     */
+    private double[] anchor() {
+        int one = -1;
+        double[] row = new double[p];
+        boolean[] allOnes = new boolean[p];
+        java.util.Arrays.fill(allOnes, true);
+        for (int i = 0; i < n; i++) {
+            pr.x.row(i, row);
+            for (int j = 0; j < p; j++) {
+                allOnes[j] &= row[j] == 1.0;
+            }
+        }
+        for (int j = 0; j < p && one < 0; j++) {
+            if (allOnes[j] && pr.candidates[j]) {
+                one = j;
+            }
+        }
+        if (one < 0) {
+            return null;
+        }
+        double sw = 0;
+        double swy = 0;
+        for (int i = 0; i < n; i++) {
+            sw += pr.priorWeights[i];
+            swy += pr.priorWeights[i] * pr.y[i];
+        }
+        double m = swy / sw;
+        if (!pr.family.isValidMean(m) || !pr.link.isValidEta(pr.link.apply(m))) {
+            return null;
+        }
+        double[] b = new double[p];
+        b[one] = pr.link.apply(m);
+        double[] e = new double[n];
+        pr.x.multiply(b, pr.offset, e);
+        return means(e, new double[n]) ? b : null;
+    }
+
     private WlsRoute switchToQr(boolean[] excluded) {
         QrRoute qr = new QrRoute(pr.x, options.rankTolerance());
         qr.setExcluded(excluded);
@@ -261,6 +327,52 @@ public final class Irls {
 
     private void emit(int iter, double dev, int halvings, long t0) {
         options.listener().onIteration(IterationEvent.of(iter, dev, halvings, System.nanoTime() - t0));
+    }
+
+    private static boolean isCanonical(Family family, Link link) {
+        return family.defaultLink().name().equals(link.name()) && !family.name().startsWith("negative");
+    }
+
+    /**
+     * Working values of a Newton step with the observed information: weight
+     * pw (mu'^2 / V - (y - mu) d/deta(mu' / V)), response eta - offset + score / weight, with
+     * mu'' and V' by central differences (they only steer the path; the fixed point is the
+     * score equation). Weights may be negative (the step is then solved from the cross products,
+     * which must be positive definite). Returns false, leaving w and z undefined, when a weight
+     * is not finite or too close to 0 to divide by.
+     */
+    private boolean observedWorkingValues(double[] eta, double[] mu, double[] w, double[] z) {
+        for (int i = 0; i < n; i++) {
+            double pw = pr.priorWeights[i];
+            if (pw == 0) {
+                w[i] = 0;
+                z[i] = 0;
+                continue;
+            }
+            double e = eta[i];
+            double m = mu[i];
+            double d = pr.link.derivative(e);
+            double v = pr.family.variance(m);
+            double he = 1e-5 * Math.max(1.0, Math.abs(e));
+            if (!pr.link.isValidEta(e + he) || !pr.link.isValidEta(e - he)) {
+                return false;
+            }
+            double d2 = (pr.link.derivative(e + he) - pr.link.derivative(e - he)) / (2 * he);
+            double hm = 1e-5 * Math.abs(m);
+            if (hm == 0 || !pr.family.isValidMean(m + hm) || !pr.family.isValidMean(m - hm)) {
+                return false;
+            }
+            double dv = (pr.family.variance(m + hm) - pr.family.variance(m - hm)) / (2 * hm);
+            double r = pr.y[i] - m;
+            double fisher = pw * d * d / v;
+            double wi = fisher - pw * r * (d2 / v - d * d * dv / (v * v));
+            if (!Double.isFinite(wi) || Math.abs(wi) < 1e-8 * fisher) {
+                return false;
+            }
+            w[i] = wi;
+            z[i] = e - pr.offset[i] + pw * r * d / v / wi;
+        }
+        return true;
     }
 
     private static boolean isIdentity(Link link) {
