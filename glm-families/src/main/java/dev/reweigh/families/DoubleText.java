@@ -28,16 +28,14 @@ final class DoubleText {
         if (x == 0.0) {
             return (1.0 / x < 0) ? "-0.0" : "0.0";
         }
-        BigDecimal shortest = null;
-        for (int digits = 1; digits <= 17; digits++) {
-            BigDecimal candidate = new BigDecimal(x).round(new MathContext(digits, RoundingMode.HALF_EVEN));
+        // Double.toString reads back exactly and is at most a digit or so too long; try fewer digits.
+        BigDecimal exact = new BigDecimal(x);
+        BigDecimal shortest = new BigDecimal(Double.toString(x));
+        for (int digits = shortest.stripTrailingZeros().precision() - 1; digits >= 1; digits--) {
+            BigDecimal candidate = exact.round(new MathContext(digits, RoundingMode.HALF_EVEN));
             if (candidate.doubleValue() == x) {
                 shortest = candidate;
-                break;
             }
-        }
-        if (shortest == null) {
-            shortest = new BigDecimal(x);
         }
         shortest = shortest.stripTrailingZeros();
         double magnitude = Math.abs(x);

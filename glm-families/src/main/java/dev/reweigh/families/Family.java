@@ -20,8 +20,10 @@ package dev.reweigh.families;
 public interface Family {
 
     /**
-     * Returns the name this family is looked up by in Families.byName, e.g.
-     * "gamma", "tweedie:1.5" or "negative-binomial:2.0".
+     * Returns the name this family is looked up by in {@link Families#byName(String)}, e.g.
+     * "gamma", "tweedie:1.5" or "negative-binomial:2.0". Names are canonical: numbers are written
+     * in the shortest decimal form that reads back to the same double, and two families are equal
+     * exactly when their names are.
      *
      * @return the canonical name
      * @since 0.1
@@ -38,7 +40,10 @@ public interface Family {
     double variance(double mu);
 
     /**
-     * Returns the unit deviance d(y, mu): non-negative, zero exactly when y equals mu.
+     * Returns the unit deviance d(y, mu): non-negative, zero exactly when y equals mu. It keeps
+     * its relative accuracy when y is close to mu and at the boundary y = 0. It does not check
+     * its arguments (it sits on the fitting loop's hot path): the caller passes a valid response
+     * and a valid mean.
      *
      * @param y a valid response
      * @param mu a valid mean
@@ -113,14 +118,20 @@ public interface Family {
      * @param mu the mean
      * @param dispersion phi, positive (ignored by families whose dispersion is fixed at 1)
      * @param priorWeight the row's prior weight, positive
-     * @return the log-density, possibly negative infinity where the density is 0
+     * @return the log-density, possibly negative infinity where the density is 0 (a response
+     *     outside the family's support)
      * @throws NoLikelihoodException when the family has no density
+     * @throws ReweighException when the mean is not valid or the dispersion or prior weight is not
+     *     positive and finite
      * @since 0.1
      */
     double logDensity(double y, double mu, double dispersion, double priorWeight);
 
     /**
-     * Returns the distribution function P(Y &lt;= y), used for randomized quantile residuals.
+     * Returns the distribution function P(Y &lt;= y), used for randomized quantile residuals. For
+     * the discrete families P(Y &lt; y) is the value one step below: at y - 1 for counts, at
+     * y - 1/w for a binomial proportion out of w trials. For the count families a prior weight is
+     * a frequency weight and does not change the distribution of one observation.
      *
      * @param y the response
      * @param mu the mean
@@ -128,6 +139,8 @@ public interface Family {
      * @param priorWeight the row's prior weight, positive
      * @return the probability P(Y &lt;= y)
      * @throws NoLikelihoodException when the family has no density
+     * @throws ReweighException when the mean is not valid or the dispersion or prior weight is not
+     *     positive and finite
      * @since 0.1
      */
     double cumulativeProbability(double y, double mu, double dispersion, double priorWeight);

@@ -17,8 +17,8 @@ package dev.reweigh.families;
 public interface Link {
 
     /**
-     * Returns the name this link is looked up by in Links.byName, e.g. "log" or
-     * "power:0.5".
+     * Returns the name this link is looked up by in {@link Links#byName(String)}, e.g. "log" or
+     * "power:0.25" (the exponents 0, 1, 1/2, -1 and -2 have their own names).
      *
      * @return the canonical name
      * @since 0.1
