@@ -8,6 +8,7 @@ module dev.reweigh.core {
     requires ejml.core;
     requires ejml.ddense;
     requires com.fasterxml.jackson.core;
+    requires transitive java.sql;
     requires commons.math3;
 
     exports dev.reweigh.core;

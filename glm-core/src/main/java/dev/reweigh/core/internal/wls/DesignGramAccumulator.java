@@ -69,6 +69,33 @@ public final class DesignGramAccumulator implements CrossProductAccumulator {
         return GramRows.of(layout, x.rows(), x.dense(), codes, mult);
     }
 
+    /**
+     * Tells whether a design has the column structure of a layout (same dense columns, same
+     * factor blocks), so that its rows can be summed with it.
+     *
+     * @param layout the layout
+     * @param x the design
+     * @return true if they match
+     */
+    public static boolean matches(GramLayout layout, DesignMatrix x) {
+        if (x.columns() != layout.columns() || x.denseWidth() != layout.denseWidth()
+                || x.factors().size() != layout.factorCount()) {
+            return false;
+        }
+        for (int k = 0; k < x.denseWidth(); k++) {
+            if (x.denseColumns()[k] != layout.denseColumn(k)) {
+                return false;
+            }
+        }
+        for (int f = 0; f < layout.factorCount(); f++) {
+            DesignMatrix.FactorBlock b = x.factors().get(f);
+            if (b.levels() != layout.factorLevels(f) || b.firstColumn() != layout.factorFirstColumn(f)) {
+                return false;
+            }
+        }
+        return true;
+    }
+
     @Override
     public void accumulate(DesignMatrix x, double[] w, double[] z, double[] gram, double[] xtwz) {
         if (x != design) {
