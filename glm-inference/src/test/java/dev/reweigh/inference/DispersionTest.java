@@ -139,6 +139,37 @@ class DispersionTest {
     }
 
     @Test
+    void numericMaximumLikelihoodDispersionOfATweedieModelAndItsLikelihoodInterval() {
+        FittedModel fit = Glm.fit(ModelSpec.builder("premium").family(Families.tweedie(1.5)).link(Links.log())
+                .factor("vehicle", "hatchback").numeric("age").build(),
+                TestData.compoundPoissonPremiums(300, 1.5, 2.0, 43));
+        DispersionEstimate ml = DispersionEstimate.of(fit, DispersionMethod.MAXIMUM_LIKELIHOOD);
+        double best = logLikelihood(fit, ml.value());
+        assertTrue(best >= logLikelihood(fit, ml.value() * 1.001));
+        assertTrue(best >= logLikelihood(fit, ml.value() / 1.001));
+        // at the interval's ends twice the drop in log-likelihood is the chi-square(1) 95% quantile, 3.8415
+        // (Commons Math's ChiSquaredDistribution gives the quantile)
+        double cut = new ChiSquaredDistribution(1).inverseCumulativeProbability(0.95);
+        Interval interval = ml.likelihoodInterval(0.95).orElseThrow();
+        assertEquals(cut, 2 * (best - logLikelihood(fit, interval.lower())), 1e-6);
+        assertEquals(cut, 2 * (best - logLikelihood(fit, interval.upper())), 1e-6);
+        // the Pearson estimate has the same likelihood interval (it does not depend on the method)
+        assertEquals(interval.lower(), DispersionEstimate.of(fit, DispersionMethod.PEARSON).likelihoodInterval(0.95)
+                .orElseThrow().lower(), 1e-9);
+    }
+
+    private static double logLikelihood(FittedModel fit, double phi) {
+        double[] y = fit.response();
+        double[] mu = fit.fittedValues();
+        double[] w = fit.priorWeights();
+        double l = 0;
+        for (int i = 0; i < y.length; i++) {
+            l += fit.family().logDensity(y[i], mu[i], phi, w[i]);
+        }
+        return l;
+    }
+
+    @Test
     void fixedDispersionFamiliesRefuseMaximumLikelihoodAndQuasiFamiliesHaveNone() {
         FittedModel poisson = Glm.fit(ModelSpec.builder("claims").family(Families.poisson())
                 .factor("vehicle", "hatchback").logOffset("exposure").build(), TestData.poissonCounts(100, 51));
