@@ -123,9 +123,9 @@ final class JsonDoc {
                 if (p.getNumberType() == JsonParser.NumberType.INT || p.getNumberType() == JsonParser.NumberType.LONG) {
                     return p.getLongValue();
                 }
-                return p.getDoubleValue();
+                return finite(p);
             case VALUE_NUMBER_FLOAT:
-                return p.getDoubleValue();
+                return finite(p);
             case VALUE_TRUE:
                 return Boolean.TRUE;
             case VALUE_FALSE:
@@ -136,6 +136,15 @@ final class JsonDoc {
                 throw new ArtifactException("document", "unexpected JSON token " + t + " at "
                         + where(p.currentLocation()));
         }
+    }
+
+    private static double finite(JsonParser p) throws IOException {
+        double d = p.getDoubleValue();
+        if (!Double.isFinite(d)) {
+            throw new ArtifactException("document", "the number " + p.getText() + " at " + where(p.currentLocation())
+                    + " is outside the range of a double; expected a finite number");
+        }
+        return d;
     }
 
     /** The document, indented for people to read (members in their given order). */

@@ -1,5 +1,6 @@
 package dev.reweigh.core;
 
+import dev.reweigh.families.Experimental;
 import dev.reweigh.families.Family;
 import dev.reweigh.families.InvalidDataException;
 import dev.reweigh.families.Link;
@@ -131,6 +132,7 @@ public final class Scorer {
      * @return the level, e.g. 0.95, or empty
      * @since 0.1
      */
+    @Experimental
     public OptionalDouble intervalLevel() {
         return Double.isNaN(level) ? OptionalDouble.empty() : OptionalDouble.of(level);
     }
@@ -453,13 +455,16 @@ public final class Scorer {
 
         /**
          * Computes a delta-method interval on each mean at this level: mean plus or minus z
-         * times |dmu/deta| sqrt(dispersion x' C x), z the normal quantile.
+         * times |dmu/deta| sqrt(dispersion x' C x), z the normal quantile. Experimental: outside
+         * the compatibility promise, because the interval may move to the link scale (mapped
+         * through the inverse link, so that it stays in the family's domain).
          *
          * @param level the coverage, strictly between 0 and 1, e.g. 0.95
          * @return this builder
          * @throws IllegalArgumentException when the level is not strictly between 0 and 1
          * @since 0.1
          */
+        @Experimental
         public Builder intervalLevel(double level) {
             if (!(level > 0 && level < 1)) {
                 throw new IllegalArgumentException("the interval level must be strictly between 0 and 1, got "

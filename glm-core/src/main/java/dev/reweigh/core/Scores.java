@@ -1,5 +1,7 @@
 package dev.reweigh.core;
 
+import dev.reweigh.families.Experimental;
+
 import java.util.Objects;
 
 /**
@@ -100,6 +102,7 @@ public final class Scores {
      * @throws IllegalStateException when the scorer computes no intervals
      * @since 0.1
      */
+    @Experimental
     public double[] standardError() {
         return requireIntervals(standardError).clone();
     }
@@ -111,6 +114,7 @@ public final class Scores {
      * @throws IllegalStateException when the scorer computes no intervals
      * @since 0.1
      */
+    @Experimental
     public double[] lower() {
         return requireIntervals(lower).clone();
     }
@@ -122,6 +126,7 @@ public final class Scores {
      * @throws IllegalStateException when the scorer computes no intervals
      * @since 0.1
      */
+    @Experimental
     public double[] upper() {
         return requireIntervals(upper).clone();
     }
@@ -135,6 +140,7 @@ public final class Scores {
      * @throws IndexOutOfBoundsException when the row is out of range
      * @since 0.1
      */
+    @Experimental
     public double lower(int row) {
         return requireIntervals(lower)[Objects.checkIndex(row, lower.length)];
     }
@@ -148,6 +154,7 @@ public final class Scores {
      * @throws IndexOutOfBoundsException when the row is out of range
      * @since 0.1
      */
+    @Experimental
     public double upper(int row) {
         return requireIntervals(upper)[Objects.checkIndex(row, upper.length)];
     }

@@ -143,6 +143,14 @@ class CorruptArtifactTest {
     }
 
     @Test
+    void aNumberBeyondTheRangeOfADoubleIsRefused() {
+        // found by ArtifactFuzzTest: a flipped exponent digit made a number overflow to infinity
+        String t = Fixtures.JSON.replaceFirst("\"deviance\" : [0-9.Ee+-]+", "\"deviance\" : 1.0E999");
+        assertTrue(t.contains("1.0E999"));
+        assertMentions(refused(t), "document", "1.0E999", "finite number");
+    }
+
+    @Test
     void garbageAndStrangersAreRefused() {
         assertMentions(refused("hello"), "document", "not valid JSON");
         assertMentions(refused(""), "document", "empty");
