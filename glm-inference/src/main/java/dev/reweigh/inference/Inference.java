@@ -753,7 +753,8 @@ public final class Inference {
                 .append(" rows used, rank ").append(fit.rank()).append('\n');
         sb.append(coefficients());
         sb.append("deviance ").append(TextTable.number(fit.deviance())).append(" on ").append(fit.residualDf())
-                .append(" residual df; intercept-only deviance ").append(TextTable.number(fit.nullDeviance()))
+                .append(" residual df; ").append(fit.spec().hasIntercept() ? "intercept-only" : "no-term")
+                .append(" deviance ").append(TextTable.number(fit.nullDeviance()))
                 .append(" on ").append(fit.nullDf()).append(" df\n");
         if (fit.family().hasDensity()) {
             try {

@@ -79,7 +79,7 @@ public final class Prediction {
      * Returns the standard deviation of one response at this mean, sqrt(phi V(mu) / w) (for the
      * Gamma family mu sqrt(phi / w)).
      *
-     * @return the standard deviation
+     * @return the standard deviation (positive infinity for a row with zero prior weight)
      * @since 0.1
      */
     public double responseStandardDeviation() {
