@@ -110,7 +110,9 @@ class ResidualPropertiesTest {
         assertArrayEquals(r.of(ResidualKind.DEVIANCE), r.deviance());
     }
 
-    @Property(tries = 20)
+    // a statistical check: the jqwik seed is fixed so that the 20 data sets (and the outcome) are the same on
+    // every run
+    @Property(tries = 20, seed = "20260101")
     void randomizedQuantileResidualsOfACorrectModelAreStandardNormal(@ForAll("families") String family,
             @ForAll @LongRange(min = 1, max = 1_000_000) long seed) {
         // Dunn & Smyth 1996, J. Computational and Graphical Statistics 5, 236-244: for a correctly specified
