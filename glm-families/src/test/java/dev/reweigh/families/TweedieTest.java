@@ -12,6 +12,7 @@ import org.apache.commons.math3.analysis.UnivariateFunction;
 import org.apache.commons.math3.analysis.integration.IterativeLegendreGaussIntegrator;
 import org.apache.commons.math3.distribution.GammaDistribution;
 import org.apache.commons.math3.distribution.PoissonDistribution;
+import org.apache.commons.math3.special.Gamma;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -81,6 +82,58 @@ class TweedieTest {
         for (double y : new double[] {4.0, 5.0, 6.2}) {
             double reference = mixtureDensity(y, 5.0, 1e-3, 1.5);
             assertEquals(Math.log(reference), Families.tweedie(1.5).logDensity(y, 5.0, 1e-3, 1.0), 1e-9, "y=" + y);
+        }
+    }
+
+    /**
+     * P(Y &lt;= y) summed over every count j from 1 to far above the Poisson mode, from Commons Math's
+     * PoissonDistribution.logProbability and the regularized incomplete gamma function
+     * (org.apache.commons.math3.special.Gamma.regularizedGammaP).
+     */
+    static double mixtureDistributionFunction(double y, double mu, double phi, double p) {
+        double lambda = Math.pow(mu, 2 - p) / (phi * (2 - p));
+        double shape = (2 - p) / (p - 1);
+        double scale = phi * (p - 1) * Math.pow(mu, p - 1);
+        PoissonDistribution count = new PoissonDistribution(null, lambda, 1e-14, 10_000_000);
+        double sum = Math.exp(-lambda);
+        double last = lambda + 15 * Math.sqrt(lambda) + 50;
+        for (int j = 1; j <= last; j++) {
+            sum += Math.exp(count.logProbability(j)) * Gamma.regularizedGammaP(shape * j, y / scale);
+        }
+        return sum;
+    }
+
+    @Provide
+    Arbitrary<double[]> distributionCases() {
+        // lambda (the expected number of Gamma summands) up to 1e4, where p near 1 makes the
+        // Gamma factor switch from 1 to 0 within a few counts.
+        return net.jqwik.api.Combinators.combine(FamilyCase.uniform(1.01, 1.99), FamilyCase.logUniform(-1, 1),
+                FamilyCase.logUniform(-1, 4), FamilyCase.uniform(-3, 3))
+                .as((p, mu, lambda, z) -> {
+                    double phi = Math.pow(mu, 2 - p) / (lambda * (2 - p));
+                    double y = Math.max(0.0, mu + z * Math.sqrt(phi * Math.pow(mu, p)));
+                    return new double[] {p, mu, phi, y};
+                });
+    }
+
+    @Property(tries = 60)
+    void distributionFunctionEqualsThePoissonGammaMixture(@ForAll("distributionCases") double[] c) {
+        double reference = mixtureDistributionFunction(c[3], c[1], c[2], c[0]);
+        double ours = Families.tweedie(c[0]).cumulativeProbability(c[3], c[1], c[2], 1.0);
+        assertEquals(reference, ours, 1e-13 + 1e-11 * reference,
+                () -> "p=" + c[0] + " mu=" + c[1] + " phi=" + c[2] + " y=" + c[3]);
+    }
+
+    @Test
+    void distributionFunctionNearPowerOneWithManySummands() {
+        // p = 1.02, lambda = 5000: the Gamma factor switches from 1 to 0 within about 10 counts while
+        // the Poisson factor spreads over 70; a lattice sized by the Poisson spread alone erred by 1e-5 here.
+        double p = 1.02;
+        double mu = 10.0;
+        double phi = Math.pow(mu, 2 - p) / (5000 * (2 - p));
+        for (double y : new double[] {9.8, 10.0, 10.2}) {
+            double reference = mixtureDistributionFunction(y, mu, phi, p);
+            assertEquals(reference, Families.tweedie(p).cumulativeProbability(y, mu, phi, 1.0), 1e-13, "y=" + y);
         }
     }
 
