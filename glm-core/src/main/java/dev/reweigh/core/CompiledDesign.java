@@ -178,8 +178,8 @@ final class CompiledDesign {
             }
             idx.add(m);
         }
-        this.inputLevels = layout.levels;
-        this.levelIndex = idx;
+        this.inputLevels = java.util.Collections.unmodifiableList(layout.levels);
+        this.levelIndex = java.util.Collections.unmodifiableList(idx);
         this.b = new double[col];
         for (int j = 0; j < col; j++) {
             b[j] = Double.isNaN(beta[j]) ? 0.0 : beta[j];
