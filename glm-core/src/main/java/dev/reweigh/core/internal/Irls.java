@@ -82,6 +82,11 @@ public final class Irls {
         startingValues(eta, mu);
         if (options.startCoefficients().isPresent()) {
             beta = options.startCoefficients().get();
+            for (int j = 0; j < p; j++) {
+                if (!pr.candidates[j] || Double.isNaN(beta[j])) {
+                    beta[j] = 0.0;
+                }
+            }
         }
         double dev = deviance(mu);
         double[] anchor = anchor();
@@ -385,6 +390,11 @@ public final class Irls {
             if (b.length != p) {
                 throw new IllegalArgumentException("start coefficients have length " + b.length + ", the model has "
                         + p + " columns");
+            }
+            for (int j = 0; j < p; j++) {
+                if (!pr.candidates[j] || Double.isNaN(b[j])) {
+                    b[j] = 0.0; // a held column's contribution is already in the offset
+                }
             }
             pr.x.multiply(b, pr.offset, eta);
             for (int i = 0; i < n; i++) {
