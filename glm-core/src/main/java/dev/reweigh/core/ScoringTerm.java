@@ -133,13 +133,19 @@ abstract class ScoringTerm {
                 double[] norms = numbers(m, "squaredNorms", path, degree + 1, true);
                 return new OrthogonalPolynomial(column, centres, norms);
             }
-            case "interaction":
+            case "interaction": {
                 if (depth >= JsonDoc.MAX_DEPTH) {
                     throw new ArtifactException(path, "interactions nest too deeply");
                 }
-                return new Interaction(fromJson(JsonFields.required(m, "left", path), JsonFields.child(path, "left"),
-                        depth + 1), fromJson(JsonFields.required(m, "right", path), JsonFields.child(path, "right"),
-                        depth + 1));
+                ScoringTerm left = fromJson(JsonFields.required(m, "left", path), JsonFields.child(path, "left"),
+                        depth + 1);
+                ScoringTerm right = fromJson(JsonFields.required(m, "right", path), JsonFields.child(path, "right"),
+                        depth + 1);
+                if ((long) left.partCount() * right.partCount() > MAX_COLUMNS) {
+                    throw new ArtifactException(path, "the interaction has more than " + MAX_COLUMNS + " parts");
+                }
+                return new Interaction(left, right);
+            }
             default:
                 throw new ArtifactException(JsonFields.child(path, "kind"), "unknown term kind '" + kind
                         + "'; expected numeric, factor, polynomial or interaction");
@@ -557,14 +563,8 @@ abstract class ScoringTerm {
 
         @Override
         long columnCount() {
-            long total = 0;
-            for (int k = 0; k < partCount(); k++) {
-                total += partWidth(k);
-                if (total > MAX_COLUMNS) {
-                    return MAX_COLUMNS + 1;
-                }
-            }
-            return total;
+            // every column of one side times every column of the other; each count is at most MAX + 1
+            return Math.min(a.columnCount() * b.columnCount(), MAX_COLUMNS + 1);
         }
 
         @Override

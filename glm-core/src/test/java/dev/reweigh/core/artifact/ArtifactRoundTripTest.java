@@ -153,6 +153,7 @@ class ArtifactRoundTripTest {
                 .term(Term.interaction(Term.factor("vehicle"), Term.polynomial("value", 2, false)))
                 .term(Term.interaction(Term.interaction(Term.factor("region"), Term.numeric("age")),
                         Term.numeric("value")))
+                .term(Term.interaction(Term.factor("region"), Term.polynomial("age", 2, true)))
                 .offset("adjustment")
                 .logOffset("exposure")
                 .build();
@@ -170,6 +171,23 @@ class ArtifactRoundTripTest {
         assertEquals(spec.offset(), read.spec().offset());
         assertEquals(spec.logOffset(), read.spec().logOffset());
         assertTrue(read.toJson().contains("\"centres\""), "orthogonal polynomial recurrence is stored");
+    }
+
+    @Test
+    void awkwardNamesAndLevelsRoundTrip() {
+        Portfolio train = new Portfolio(400, 31);
+        String[] odd = {"Z\u00fcrich", "a \"quoted\" level", "back\\slash", "tab\there", "\ud83d\ude97 car", "2", "10"};
+        String[] district = new String[train.rows];
+        for (int i = 0; i < district.length; i++) {
+            district[i] = odd[i % odd.length];
+        }
+        Table data = Table.builder().categorical("district \u00e9", district).numeric("driver age", train.age)
+                .numeric("n", train.response("poisson", false)).build();
+        FittedModel fit = Glm.fit(ModelSpec.builder("n").family(Families.poisson()).factor("district \u00e9")
+                .numeric("driver age").build(), data);
+        ModelArtifact read = ModelArtifact.fromJson(ModelArtifact.of(fit).toJson());
+        assertEquals(fit.columnNames(), read.columnNames());
+        assertBits(fit.predictMean(data), read.scorer().score(data).mean(), "mean with awkward names");
     }
 
     @Test

@@ -151,6 +151,21 @@ class CorruptArtifactTest {
     }
 
     @Test
+    void hostileSizesAreRefusedWithoutBuildingThem() {
+        // a signed artifact whose terms would make 10^14 columns: refused from the counts alone
+        Map<String, Object> d = parse(Fixtures.JSON);
+        Map<String, Object> big = Map.of("kind", "polynomial", "column", "age", "degree", 10_000_000L,
+                "orthogonal", false);
+        @SuppressWarnings("unchecked")
+        List<Object> terms = (List<Object>) object(d, "model", "specification").get("terms");
+        terms.add(Map.of("kind", "interaction", "left", big, "right", big));
+        long t0 = System.nanoTime();
+        ArtifactException e = refused(signed(d));
+        assertTrue(e.field().startsWith("model.specification.terms[" + (terms.size() - 1) + "]"), e.getMessage());
+        assertTrue(System.nanoTime() - t0 < 5_000_000_000L, "refused promptly");
+    }
+
+    @Test
     void garbageAndStrangersAreRefused() {
         assertMentions(refused("hello"), "document", "not valid JSON");
         assertMentions(refused(""), "document", "empty");
