@@ -155,6 +155,8 @@ public final class Glm {
                 warnings.add("the intercept-only fit for the null deviance did not converge");
             }
             return r.deviance;
+        } catch (FitInterruptedException e) {
+            throw e; // an interrupt stops the whole fit, not just its null model
         } catch (ReweighException e) {
             warnings.add("the intercept-only fit for the null deviance failed: " + e.getMessage());
             return Double.NaN;

@@ -118,6 +118,26 @@ class ConcurrencyTest {
     }
 
     @Test
+    void anInterruptDuringTheLastIterationStopsTheNullModelFitToo() {
+        // the null deviance needs its own small fit when there is an offset; an interrupt that
+        // arrives in the main fit's last iteration must stop it rather than become a warning
+        int last = Glm.fit(Fixtures.SPEC, Fixtures.TRAIN_TABLE).iterations();
+        FitOptions interruptAtLast = FitOptions.builder().listener(e -> {
+            if (e.iteration() == last) {
+                Thread.currentThread().interrupt();
+            }
+        }).build();
+        try {
+            Glm.fit(Fixtures.SPEC, Fixtures.TRAIN_TABLE, interruptAtLast);
+            throw new AssertionError("the fit ignored an interrupt in its last iteration");
+        } catch (FitInterruptedException e) {
+            assertTrue(Thread.interrupted(), "the interrupt status is restored (and cleared here)");
+        } finally {
+            Thread.interrupted();
+        }
+    }
+
+    @Test
     void aThreadInterruptedBeforeTheFitStopsAtOnce() {
         Table data = Fixtures.TRAIN_TABLE;
         assertTimeoutPreemptively(Duration.ofSeconds(2), () -> {
