@@ -107,7 +107,7 @@ class FitBehaviourTest {
             off[i] = (age + 0.01) * a[i];
         }
         Table withOffset = Table.builder().numeric("age", a).categorical("region", MOTOR.levels("region"),
-                InvarianceProperties.texts(MOTOR, "region")).numeric("exposure", MOTOR.numeric("exposure"))
+                InvariancePropertyTest.texts(MOTOR, "region")).numeric("exposure", MOTOR.numeric("exposure"))
                 .numeric("claims", MOTOR.numeric("claims")).numeric("off", off).build();
         FittedModel explicit = Glm.fit(FREQUENCY.withoutTerm("age").withOffset("off"), withOffset);
         assertEquals(explicit.deviance(), moved.deviance(), 1e-9 * explicit.deviance());

@@ -14,7 +14,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
  * A Gaussian identity-link fit is ordinary least squares: estimates and standard errors agree
  * with Commons Math's OLSMultipleLinearRegression on random designs.
  */
-class OlsAgreementProperties {
+class OlsAgreementPropertyTest {
 
     @Property(tries = 200)
     void gaussianIdentityMatchesCommonsMathOls(@ForAll @IntRange(min = 1, max = 6) int predictors,

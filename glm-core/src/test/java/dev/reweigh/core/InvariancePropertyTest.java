@@ -16,7 +16,7 @@ import java.util.Random;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
 /** Invariances a correct fit must have, on random synthetic portfolios. */
-class InvarianceProperties {
+class InvariancePropertyTest {
     private static final double TOL = 1e-8;
 
     private static ModelSpec frequency() {
