@@ -1,6 +1,7 @@
 package dev.reweigh.families;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import net.jqwik.api.Arbitraries;
 import net.jqwik.api.Assume;
@@ -134,6 +135,47 @@ class TweedieTest {
         for (double y : new double[] {9.8, 10.0, 10.2}) {
             double reference = mixtureDistributionFunction(y, mu, phi, p);
             assertEquals(reference, Families.tweedie(p).cumulativeProbability(y, mu, phi, 1.0), 1e-13, "y=" + y);
+        }
+    }
+
+    @Test
+    void saddlepointDistributionFunctionAgreesWithTheSeriesWhereBothApply() {
+        // Above lambda = 1e6 the distribution function switches to the Lugannani-Rice approximation
+        // (Lugannani and Rice, 1980, Advances in Applied Probability 12, 475-490); at lambda = 1e5 the
+        // two must already agree to about 1/lambda^2 in the centre and keep relative accuracy in the lower tail.
+        for (double p : new double[] {1.05, 1.5, 1.9}) {
+            double mu = 3.0;
+            double phi = Math.pow(mu, 2 - p) / (1e5 * (2 - p));
+            double sd = Math.sqrt(phi * Math.pow(mu, p));
+            for (double z = -6; z <= 6; z += 0.37) {
+                double y = mu + z * sd;
+                double series = TweedieSeries.cumulativeProbability(y, mu, phi, p);
+                double saddlepoint = TweedieSeries.saddlepointCumulativeProbability(y, mu, phi, p);
+                assertEquals(series, saddlepoint, 2e-9 + 1e-7 * Math.min(series, 1 - series), "p=" + p + " z=" + z);
+            }
+        }
+    }
+
+    @Test
+    void distributionFunctionForTinyDispersionsIsMonotoneAndCentred() {
+        Family f = Families.tweedie(1.5);
+        for (double phi : new double[] {1e-8, 1e-14, 1e-20}) {
+            double mu = 2.0;
+            double sd = Math.sqrt(phi * Math.pow(mu, 1.5));
+            double previous = 0;
+            for (double z = -8; z <= 8; z += 0.5) {
+                double value = f.cumulativeProbability(mu + z * sd, mu, phi, 1.0);
+                assertTrue(value >= previous && value <= 1, "phi=" + phi + " z=" + z);
+                previous = value;
+            }
+            // Normal limit with the skewness correction: F(mu) = 1/2 + gamma / (6 sqrt(2 pi)), gamma = p sqrt(phi) mu^(p/2-1).
+            double skewness = 1.5 * Math.sqrt(phi) * Math.pow(mu, 1.5 / 2 - 1);
+            assertEquals(0.5 + skewness / (6 * Math.sqrt(2 * Math.PI)), f.cumulativeProbability(mu, mu, phi, 1.0), 1e-12);
+            assertEquals(0.15865525393145707, f.cumulativeProbability(mu - sd, mu, phi, 1.0), 1e-3);
+            // The density is as finite and accurate as ever: compare with the saddlepoint density.
+            double y = mu + sd;
+            double saddle = -0.5 * Math.log(2 * Math.PI * phi * Math.pow(y, 1.5)) - f.unitDeviance(y, mu) / (2 * phi);
+            assertEquals(saddle, f.logDensity(y, mu, phi, 1.0), 1e-6);
         }
     }
 
