@@ -10,8 +10,10 @@ module dev.reweigh.examples {
     requires org.jfree.jfreechart;
     requires com.fasterxml.jackson.core;
     requires java.desktop;
+    requires commons.math3;
 
     exports dev.reweigh.examples;
     exports dev.reweigh.examples.csv;
+    exports dev.reweigh.examples.demo;
     opens dev.reweigh.examples to info.picocli;
 }

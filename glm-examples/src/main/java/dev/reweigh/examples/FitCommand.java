@@ -181,7 +181,7 @@ public final class FitCommand implements Callable<Integer> {
         FitSummary summary = FitSummary.of(fit);
         PrintWriter out = spec.commandLine().getOut();
         if (saveModel != null) {
-            throw new IllegalArgumentException("--save-model is not available yet");
+            ModelFiles.save(fit, saveModel);
         }
         if (json) {
             FitJson.write(summary, out);

@@ -28,7 +28,7 @@ import java.nio.charset.StandardCharsets;
  */
 @Command(name = "reweigh", mixinStandardHelpOptions = true, versionProvider = ReweighCli.Version.class,
         description = "Fits, scores and demonstrates generalized linear models for insurance pricing.",
-        subcommands = {FitCommand.class, CommandLine.HelpCommand.class})
+        subcommands = {FitCommand.class, ScoreCommand.class, DemoCommand.class, CommandLine.HelpCommand.class})
 public final class ReweighCli implements Runnable {
     /** Exit status for bad input and usage errors. */
     public static final int BAD_INPUT = 2;

@@ -84,6 +84,20 @@ public final class CsvTableReader {
      * @since 0.1
      */
     public Table read(Path file) {
+        return readFile(file).table();
+    }
+
+    /**
+     * Reads a file and keeps its text as well as the table (for commands that echo the input).
+     *
+     * @param file a UTF-8 CSV file with a header record
+     * @return the table with the header and the cells as written
+     * @throws DataFileException when the file is missing, unreadable, not well-formed, has a bad
+     *     header or a ragged record, or lacks a column this reader was told about
+     * @throws CellException when a cell cannot be used
+     * @since 0.1
+     */
+    public CsvFile readFile(Path file) {
         String name = file.toString();
         if (!Files.exists(file)) {
             throw new DataFileException(name, "no such file");
@@ -95,7 +109,7 @@ public final class CsvTableReader {
                 .onMalformedInput(CodingErrorAction.REPORT)
                 .onUnmappableCharacter(CodingErrorAction.REPORT);
         try (Reader in = new InputStreamReader(Files.newInputStream(file), decoder)) {
-            return read(in, name);
+            return readText(in, name);
         } catch (NoSuchFileException e) {
             throw new DataFileException(name, "no such file", e);
         } catch (AccessDeniedException e) {
@@ -117,6 +131,10 @@ public final class CsvTableReader {
      * @since 0.1
      */
     public Table read(Reader in, String source) {
+        return readText(in, source).table();
+    }
+
+    private CsvFile readText(Reader in, String source) {
         List<String[]> records = parse(in, source);
         if (records.isEmpty()) {
             throw new DataFileException(source, "is empty; expected a header record of column names");
@@ -141,7 +159,7 @@ public final class CsvTableReader {
                 table.categorical(column, cells);
             }
         }
-        return table.build();
+        return new CsvFile(table.build(), records);
     }
 
     private List<String[]> parse(Reader in, String source) {
