@@ -208,6 +208,11 @@ public final class FitCommand implements Callable<Integer> {
                 throw new DataFileException(file, "has no column '" + e.name() + "'; its columns are: "
                         + String.join(", ", e.validNames()), e);
             }
+            if (e.kind().startsWith("reference level of column ")) {
+                throw new DataFileException(file, e.kind().substring("reference level of ".length())
+                        + " has no level '" + e.name() + "' to use as the reference; its levels are: "
+                        + String.join(", ", e.validNames()), e);
+            }
             throw e;
         }
     }
