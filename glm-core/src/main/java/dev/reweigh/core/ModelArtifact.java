@@ -5,6 +5,7 @@ import dev.reweigh.families.Family;
 import dev.reweigh.families.Link;
 import dev.reweigh.families.Links;
 import dev.reweigh.families.ReweighException;
+import dev.reweigh.families.UnknownNameException;
 
 import java.io.IOException;
 import java.io.InputStream;
@@ -138,6 +139,8 @@ public final class ModelArtifact {
      *
      * @param fit the fitted model
      * @return the artifact
+     * @throws ReweighException when the family or link is the caller's own implementation, whose
+     *     name the library cannot look up when reading
      * @since 0.1
      */
     public static ModelArtifact of(FittedModel fit) {
@@ -156,6 +159,8 @@ public final class ModelArtifact {
      * @return the artifact
      * @throws IllegalArgumentException when the dispersion is not positive and finite or the
      *     method is blank
+     * @throws ReweighException when the family or link is the caller's own implementation, whose
+     *     name the library cannot look up when reading
      * @since 0.1
      */
     public static ModelArtifact of(FittedModel fit, double dispersion, String method) {
@@ -171,11 +176,34 @@ public final class ModelArtifact {
     }
 
     private static ModelArtifact create(FittedModel fit, double phi, String method) {
+        requireStorableNames(fit.family(), fit.link());
         ScoringModel sm = ScoringModel.of(fit, phi);
         double ll = logLikelihood(fit, phi);
         return new ModelArtifact(FORMAT_VERSION, Reweigh.version(), rebuildSpec(fit.spec(), sm),
                 sm, method, fit.rowCount(), fit.droppedRows(), fit.deviance(), fit.nullDeviance(), fit.residualDf(),
                 fit.nullDf(), fit.iterations(), fit.converged(), ll, fit.warnings());
+    }
+
+    /** The artifact stores family and link by name: a caller's own implementation cannot be read back. */
+    private static void requireStorableNames(Family family, Link link) {
+        try {
+            if (!Families.byName(family.name()).name().equals(family.name())) {
+                throw new UnknownNameException("family", family.name(), Families.names());
+            }
+        } catch (ReweighException e) {
+            throw new ReweighException("the family '" + family.name() + "' cannot be stored in a model artifact: its"
+                    + " name does not identify one of the library's families (" + String.join(", ", Families.names())
+                    + ")", e);
+        }
+        try {
+            if (!Links.byName(link.name()).name().equals(link.name())) {
+                throw new UnknownNameException("link", link.name(), Links.names());
+            }
+        } catch (ReweighException e) {
+            throw new ReweighException("the link '" + link.name() + "' cannot be stored in a model artifact: its"
+                    + " name does not identify one of the library's links (" + String.join(", ", Links.names())
+                    + ")", e);
+        }
     }
 
     private static ModelSpec rebuildSpec(ModelSpec original, ScoringModel sm) {

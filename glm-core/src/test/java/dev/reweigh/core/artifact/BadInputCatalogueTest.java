@@ -12,6 +12,7 @@ import dev.reweigh.core.UnseenLevelException;
 import dev.reweigh.families.Families;
 import dev.reweigh.families.Family;
 import dev.reweigh.families.InvalidDataException;
+import dev.reweigh.families.Link;
 import dev.reweigh.families.Links;
 import dev.reweigh.families.ReweighException;
 import dev.reweigh.families.UnknownNameException;
@@ -267,7 +268,45 @@ class BadInputCatalogueTest {
                 () -> ModelArtifact.fromJson("PK\u0003\u0004 not json"), "'document'", "not valid JSON"));
         c.add(bad("an unknown family in an artifact", ArtifactException.class,
                 () -> ModelArtifact.fromJson(withMember(json, "family", "\"poison\"")), "'model.family'", "poison"));
+        c.add(bad("a link of the caller's own that an artifact cannot name", ReweighException.class,
+                () -> ModelArtifact.of(Glm.fit(ModelSpec.builder("y").family(Families.poisson()).link(new OwnLog())
+                        .numeric("x").build(), ok())), "'my-log'", "cannot be stored", "artifact"));
         return c.stream();
+    }
+
+    /** A caller's own link: the log link under another name. */
+    private static final class OwnLog implements Link {
+        private final Link log = Links.log();
+
+        @Override
+        public String name() {
+            return "my-log";
+        }
+
+        @Override
+        public double apply(double mu) {
+            return log.apply(mu);
+        }
+
+        @Override
+        public double inverse(double eta) {
+            return log.inverse(eta);
+        }
+
+        @Override
+        public double derivative(double eta) {
+            return log.derivative(eta);
+        }
+
+        @Override
+        public boolean isValidEta(double eta) {
+            return log.isValidEta(eta);
+        }
+
+        @Override
+        public String etaDomain() {
+            return log.etaDomain();
+        }
     }
 
     private static String tamperFirstCoefficient(String json) {
