@@ -39,6 +39,26 @@ class CorruptArtifactTest {
     }
 
     @Test
+    void memberOrderAndLayoutDoNotMatterToTheChecksum() {
+        Map<String, Object> reversed = reverse(parse(Fixtures.JSON));
+        String compact = unsigned(reversed);   // one line, members in reverse order, original checksum
+        assertTrue(compact.indexOf("\"checksum\"") < compact.indexOf("\"format\""));
+        assertEquals(Fixtures.ARTIFACT.checksum(), ModelArtifact.fromJson(compact).checksum());
+    }
+
+    @SuppressWarnings("unchecked")
+    private static Map<String, Object> reverse(Map<String, Object> m) {
+        List<String> keys = new java.util.ArrayList<>(m.keySet());
+        java.util.Collections.reverse(keys);
+        Map<String, Object> out = new java.util.LinkedHashMap<>();
+        for (String k : keys) {
+            Object v = m.get(k);
+            out.put(k, v instanceof Map ? reverse((Map<String, Object>) v) : v);
+        }
+        return out;
+    }
+
+    @Test
     void newerMajorVersionIsRefused() {
         Map<String, Object> d = parse(Fixtures.JSON);
         d.put("formatVersion", "2.0");
