@@ -20,13 +20,17 @@ class IllConditionedPolynomialTest {
     private static final double[] SHAPE = {-1467.49, -2772.18, -2316.37, -1127.97, -354.478, -75.1242,
         -10.8753, -1.06221, -0.0670191, -0.00246781, -0.0000402963};
 
+    private static final double[] QUADRATIC = {6.7e-4, 7.3e-7, -3.2e-15};
+
     @ParameterizedTest
-    @CsvSource({"10, -9, -3, 82, 1, 0.0033, false", "10, -9, -3, 82, 2, 0.0033, false",
-        "8, -9, -3, 60, 3, 0.0033, false", "10, -8.8, -3.1, 82, 4, 0.0033, false", "6, 0, 20, 21, 5, 0.0033, false",
-        "10, 3, 9, 82, 6, 0.0033, false",
+    @CsvSource({"10, -9, -3, 82, 1, 0.0033, filip", "10, -9, -3, 82, 2, 0.0033, filip",
+        "8, -9, -3, 60, 3, 0.0033, filip", "10, -8.8, -3.1, 82, 4, 0.0033, filip", "6, 0, 20, 21, 5, 0.0033, filip",
+        "10, 3, 9, 82, 6, 0.0033, filip",
         // like the NIST Wampler problems: 1 + x + ... + x^5 on 0..20 with small and very large noise
-        "5, 0, 20, 21, 7, 236, true", "5, 0, 20, 21, 8, 23600, true", "5, 0, 20, 21, 9, 1e-3, true"})
-    void recoversTheExactSolution(int degree, double lo, double hi, int n, long seed, double noise, boolean ones) {
+        "5, 0, 20, 21, 7, 236, ones", "5, 0, 20, 21, 8, 23600, ones", "5, 0, 20, 21, 9, 1e-3, ones",
+        // like the NIST Pontius problem: a quadratic in x up to 3e6
+        "2, 150000, 3000000, 40, 10, 2e-4, quadratic"})
+    void recoversTheExactSolution(int degree, double lo, double hi, int n, long seed, double noise, String shape) {
         Random rnd = new Random(seed);
         double[] x = new double[n];
         double[] y = new double[n];
@@ -35,7 +39,7 @@ class IllConditionedPolynomialTest {
             x[i] = Math.round((lo + (hi - lo) * rnd.nextDouble()) * 1e9) / 1e9;
             double v = 0;
             for (int k = Math.min(degree, SHAPE.length - 1); k >= 0; k--) {
-                v = v * x[i] + (ones ? 1.0 : SHAPE[k]);
+                v = v * x[i] + (shape.equals("ones") ? 1.0 : shape.equals("quadratic") ? QUADRATIC[k] : SHAPE[k]);
             }
             y[i] = v + noise * rnd.nextGaussian();
         }

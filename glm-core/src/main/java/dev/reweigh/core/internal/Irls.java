@@ -29,8 +29,10 @@ import java.util.Locale;
  */
 public final class Irls {
     private static final System.Logger LOG = System.getLogger(Irls.class.getName());
-    /** Above this many entries of the expanded model matrix, AUTO prefers the Cholesky route. */
-    static final long QR_AUTO_LIMIT = 4_000_000L;
+    /** Up to this many entries of the expanded model matrix, AUTO takes the pivoted-QR route. */
+    static final long QR_AUTO_LIMIT = 1_000_000L;
+    /** Up to this many entries, AUTO moves from Cholesky to QR when the condition estimate is poor. */
+    static final long QR_SWITCH_LIMIT = 8_000_000L;
     /** AUTO leaves the Cholesky route when the condition estimate exceeds this. */
     static final double CHOLESKY_CONDITION_LIMIT = 1e4;
 
@@ -67,8 +69,12 @@ public final class Irls {
         return new CholeskyRoute(pr.x, CrossProducts.accumulator(options.threads()), options.rankTolerance());
     }
 
-    private boolean qrAffordable() {
+    private boolean qrPreferred() {
         return (long) n * p <= QR_AUTO_LIMIT;
+    }
+
+    private boolean qrAffordable() {
+        return (long) n * p <= QR_SWITCH_LIMIT;
     }
 
     private IrlsResult run() {
@@ -92,7 +98,7 @@ public final class Irls {
         double[] anchor = anchor();
 
         Solver solver = options.solver();
-        boolean accurate = solver == Solver.PIVOTED_QR || (solver == Solver.AUTO && qrAffordable());
+        boolean accurate = solver == Solver.PIVOTED_QR || (solver == Solver.AUTO && qrPreferred());
         WlsRoute route = newRoute(accurate);
         boolean[] excluded = null;
         double[] w = new double[n];
@@ -274,6 +280,11 @@ public final class Irls {
             LOG.log(Level.WARNING, msg);
         }
         boundaryWarnings(mu, warnings);
+        if (!accurate && route.conditionEstimate() > 1e6) {
+            warnings.add(String.format(Locale.ROOT, "the cross-product (Cholesky) route solved a poorly conditioned"
+                    + " problem (condition estimate %.1e): estimates may have lost digits; the PIVOTED_QR solver is"
+                    + " more accurate", route.conditionEstimate()));
+        }
         return new IrlsResult(beta2, aliased, eta, mu, w, cov, dev, iter, converged, warnings,
                 accurate ? "pivoted QR" : "Cholesky");
     }
