@@ -89,6 +89,11 @@ final class BinomialFamily extends AbstractFamily {
         return ProbabilityMath.logBinomialTerm(successes(y, trials), trials, mu, 1.0 - mu);
     }
 
+    /**
+     * The regularized incomplete beta function I_(1-mu)(n - k, k + 1); when the variance
+     * n mu (1 - mu) exceeds 1e7 the continuity-corrected saddlepoint approximation
+     * ({@link Saddlepoint}).
+     */
     @Override
     public double cumulativeProbability(double y, double mu, double dispersion, double priorWeight) {
         checkDensityArguments(mu, 1.0, priorWeight);
@@ -100,8 +105,32 @@ final class BinomialFamily extends AbstractFamily {
         if (k >= trials) {
             return 1.0;
         }
+        if (trials * mu * (1.0 - mu) > Saddlepoint.LARGE) {
+            return saddlepointDistribution(k, trials, mu);
+        }
         // P(K <= k) = I_{1-mu}(n - k, k + 1), the regularized incomplete beta function.
         return Beta.regularizedBeta(1.0 - mu, trials - k, k + 1.0);
+    }
+
+    /**
+     * Continuity-corrected saddlepoint form at K = k + 1/2 successes, worked on the count scale:
+     * with a billion trials (k + 1/2) / n would lose the half step to rounding, and n mu is only
+     * needed through the exactly rounded difference K - n mu (a fused multiply-add).
+     */
+    static double saddlepointDistribution(double k, double trials, double mu) {
+        double successes = k + 0.5;
+        double failures = (trials - k) - 0.5;
+        double expected = trials * mu;
+        double expectedFailures = trials * (1.0 - mu);
+        double diff = -Math.fma(trials, mu, -successes);
+        double deviance = 2.0 * (ProbabilityMath.bd0(successes, expected, diff)
+                + ProbabilityMath.bd0(failures, expectedFailures, -diff));
+        double w = Saddlepoint.devianceResidual(diff, 0.0, deviance, 1.0);
+        // s = logit((k + 1/2)/n) - logit(mu) = log(K / (n mu)) - log((n - K) / (n (1 - mu))).
+        double s = Math.log1p(diff / expected) - Math.log1p(-diff / expectedFailures);
+        double u = 2.0 * Math.sinh(0.5 * s) * Math.sqrt(successes * failures / trials);
+        double skewness = (1.0 - 2.0 * mu) / Math.sqrt(trials * mu * (1.0 - mu));
+        return Saddlepoint.distributionFunction(w, u, skewness);
     }
 
     @Override

@@ -71,6 +71,11 @@ final class GammaFamily extends AbstractFamily {
                 + 0.5 * (Math.log(shape) - ProbabilityMath.LOG_2PI) - 0.5 * shape * unitDeviance(y, mu);
     }
 
+    /**
+     * The regularized incomplete gamma function P(k, k y / mu), k = w / phi; for shapes above 1e7,
+     * where its Commons Math evaluation loses digits, the saddlepoint approximation
+     * ({@link Saddlepoint}).
+     */
     @Override
     public double cumulativeProbability(double y, double mu, double dispersion, double priorWeight) {
         checkDensityArguments(mu, dispersion, priorWeight);
@@ -78,7 +83,16 @@ final class GammaFamily extends AbstractFamily {
             return 0.0;
         }
         double shape = priorWeight / dispersion;
+        if (shape > Saddlepoint.LARGE) {
+            return saddlepointDistribution(y, mu, shape);
+        }
         return Gamma.regularizedGammaP(shape, shape * y / mu);
+    }
+
+    /** Saddlepoint form: u = (theta(y) - theta(mu)) sqrt(V(y) k) with theta = -1/m is (y - mu) sqrt(k) / mu. */
+    static double saddlepointDistribution(double y, double mu, double shape) {
+        double w = Saddlepoint.devianceResidual(y, mu, PowerVariance.unitDeviance(y, mu, 2.0), 1.0 / shape);
+        return Saddlepoint.distributionFunction(w, (y - mu) * Math.sqrt(shape) / mu, 2.0 / Math.sqrt(shape));
     }
 
     @Override

@@ -94,6 +94,11 @@ final class NegativeBinomialFamily extends AbstractFamily {
         return priorWeight * logPmf;
     }
 
+    /**
+     * The regularized incomplete beta function I_p(theta, k + 1), p = theta / (theta + mu); when
+     * both theta and mu exceed 1e7 the continuity-corrected saddlepoint approximation
+     * ({@link Saddlepoint}).
+     */
     @Override
     public double cumulativeProbability(double y, double mu, double dispersion, double priorWeight) {
         checkDensityArguments(mu, 1.0, priorWeight);
@@ -101,8 +106,21 @@ final class NegativeBinomialFamily extends AbstractFamily {
         if (k < 0) {
             return 0.0;
         }
+        if (Math.min(theta, mu) > Saddlepoint.LARGE) {
+            return saddlepointDistribution(k, mu);
+        }
         // P(Y <= k) = I_p(theta, k + 1), p = theta / (theta + mu): valid for non-integer theta too.
         return Beta.regularizedBeta(theta / (theta + mu), theta, k + 1.0);
+    }
+
+    /** Continuity-corrected saddlepoint form at k + 1/2; theta(m) = log(m / (m + theta)). */
+    double saddlepointDistribution(double k, double mu) {
+        double corrected = k + 0.5;
+        double w = Saddlepoint.devianceResidual(corrected, mu, unitDeviance(corrected, mu), 1.0);
+        double thetaDifference = PowerVariance.logRatio(corrected, mu) - PowerVariance.logRatio(corrected + theta, mu + theta);
+        double u = 2.0 * Math.sinh(0.5 * thetaDifference) * Math.sqrt(variance(corrected));
+        double skewness = (theta + 2.0 * mu) / Math.sqrt(theta * mu * (theta + mu));
+        return Saddlepoint.distributionFunction(w, u, skewness);
     }
 
     @Override
@@ -127,11 +145,17 @@ final class NegativeBinomialFamily extends AbstractFamily {
         if (lower == upper) {
             return 0.0;
         }
-        IterativeLegendreGaussIntegrator integrator = new IterativeLegendreGaussIntegrator(8, 1e-13, 1e-15);
         double from = Math.min(lower, upper);
         double to = Math.max(lower, upper);
-        double integral = integrator.integrate(10_000,
-                u -> 3.0 * u * Math.pow(1.0 + u * u * u / theta, -1.0 / 3.0), from, to);
+        // Pieces that double in length keep each one smooth on its own scale over wide ranges.
+        IterativeLegendreGaussIntegrator integrator = new IterativeLegendreGaussIntegrator(8, 1e-13, 1e-15);
+        double integral = 0.0;
+        double a = from;
+        while (a < to) {
+            double b = Math.min(to, Math.max(2.0 * a, a + 1.0));
+            integral += integrator.integrate(100_000, u -> 3.0 * u * Math.pow(1.0 + u * u * u / theta, -1.0 / 3.0), a, b);
+            a = b;
+        }
         double signed = upper > lower ? integral : -integral;
         return signed / Math.pow(variance(mu), 1.0 / 6.0);
     }

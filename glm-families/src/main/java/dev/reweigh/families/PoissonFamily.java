@@ -65,6 +65,10 @@ final class PoissonFamily extends AbstractFamily {
         return priorWeight * ProbabilityMath.logPoisson(k, mu);
     }
 
+    /**
+     * The regularized incomplete gamma function Q(k + 1, mu); for means above 1e7 the
+     * continuity-corrected saddlepoint approximation ({@link Saddlepoint}).
+     */
     @Override
     public double cumulativeProbability(double y, double mu, double dispersion, double priorWeight) {
         checkDensityArguments(mu, 1.0, priorWeight);
@@ -72,7 +76,18 @@ final class PoissonFamily extends AbstractFamily {
         if (k < 0) {
             return 0.0;
         }
+        if (mu > Saddlepoint.LARGE) {
+            return saddlepointDistribution(k, mu);
+        }
         return Gamma.regularizedGammaQ(k + 1.0, mu);
+    }
+
+    /** Continuity-corrected saddlepoint form at k + 1/2; theta = log m, V(m) = m. */
+    static double saddlepointDistribution(double k, double mu) {
+        double corrected = k + 0.5;
+        double w = Saddlepoint.devianceResidual(corrected, mu, 2.0 * ProbabilityMath.bd0(corrected, mu), 1.0);
+        double u = 2.0 * Math.sinh(0.5 * PowerVariance.logRatio(corrected, mu)) * Math.sqrt(corrected);
+        return Saddlepoint.distributionFunction(w, u, 1.0 / Math.sqrt(mu));
     }
 
     /** Largest whole count not above y, treating a value within tolerance of a whole number as that number. */
