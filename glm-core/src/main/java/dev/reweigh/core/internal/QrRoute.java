@@ -257,11 +257,16 @@ final class QrRoute implements WlsRoute {
             }
             backSolve(e);
             double dxNorm = 0;
+            for (int k = 0; k < r; k++) {
+                dxNorm = Math.max(dxNorm, Math.abs(e[k]));
+            }
+            if (dxNorm > 0.5 * prev) {
+                break; // not contracting (cond(A) too close to 1/eps): keep the last good iterate
+            }
             double xNorm = 0;
             for (int k = 0; k < r; k++) {
                 int j = piv[k];
                 x[j] += e[k];
-                dxNorm = Math.max(dxNorm, Math.abs(e[k]));
                 xNorm = Math.max(xNorm, Math.abs(x[j]));
             }
             for (int k = 0; k < r; k++) {
@@ -275,7 +280,7 @@ final class QrRoute implements WlsRoute {
                 }
                 res[i] += s;
             }
-            if (dxNorm <= 0x1p-53 * xNorm || dxNorm > 0.5 * prev) {
+            if (dxNorm <= 0x1p-53 * xNorm) {
                 break;
             }
             prev = dxNorm;
