@@ -13,6 +13,8 @@ final class PowerVariance {
      * with the limits at p = 1 and p = 2. Near y = mu the bracket cancels to O((y-mu)^2), so it is
      * evaluated as 2 mu^(2-p) h(log(y/mu)) where h(u) = sum over k &gt;= 2 of
      * (1 + b + ... + b^(k-2)) u^k / k!, b = 2 - p, a series with no cancellation for small u.
+     * Farther out h(u) = (expm1(b u)/b - expm1(u)) / (b - 1), which loses about log10(1/|p - 1|)
+     * digits as p approaches 1 (3 digits at p = 1.001); p = 1 itself has its own exact form.
      */
     static double unitDeviance(double y, double mu, double p) {
         if (p == 0.0) {
