@@ -57,6 +57,7 @@ class IllConditionedPolynomialTest {
                 sb.append(String.format(Locale.ROOT, " %s: %.1f/%.1f", fit.columnNames().get(j), l1, l2));
                 min = Math.min(min, Math.min(l1, l2));
             }
+            System.out.printf(Locale.ROOT, "%s degree %d seed %d: minimum LRE %.2f%n", solver, degree, seed, min);
             assertTrue(min >= 9, solver + " minimum LRE " + min + ":" + sb);
             assertTrue(fit.aliasedColumns().isEmpty(), "nothing is aliased");
         }

@@ -75,8 +75,9 @@ final class NistDataset {
         List<double[]> rows = new ArrayList<>();
         for (int ln = data[0]; ln <= data[1]; ln++) {
             String t = lines.get(ln - 1).trim();
-            if (t.isEmpty()) {
-                continue;
+            if (t.isEmpty() || !(Character.isDigit(t.charAt(0)) || t.charAt(0) == '-' || t.charAt(0) == '.'
+                    || t.charAt(0) == '+')) {
+                continue; // blank or a heading inside the stated range
             }
             String[] tok = t.split("\\s+");
             double[] v = new double[tok.length];
