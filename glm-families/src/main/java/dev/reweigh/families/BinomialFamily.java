@@ -86,7 +86,12 @@ final class BinomialFamily extends AbstractFamily {
             return Double.NEGATIVE_INFINITY;
         }
         double trials = priorWeight;
-        return ProbabilityMath.logBinomialTerm(successes(y, trials), trials, mu, 1.0 - mu);
+        double x = successes(y, trials);
+        if (isWhole(trials) && !isWhole(x)) {
+            // A whole number of trials cannot give a fractional number of successes.
+            return Double.NEGATIVE_INFINITY;
+        }
+        return ProbabilityMath.logBinomialTerm(x, trials, mu, 1.0 - mu);
     }
 
     /**

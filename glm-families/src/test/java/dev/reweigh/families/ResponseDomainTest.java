@@ -73,6 +73,8 @@ class ResponseDomainTest {
         // A response outside the support has density 0.
         assertEquals(Double.NEGATIVE_INFINITY, Families.poisson().logDensity(2.5, 1, 1, 1));
         assertEquals(Double.NEGATIVE_INFINITY, g.logDensity(-1, 2, 1, 1));
+        assertEquals(Double.NEGATIVE_INFINITY, Families.binomial().logDensity(0.5, 0.4, 1, 3));   // 1.5 successes
+        assertTrue(Double.isFinite(Families.binomial().logDensity(0.5, 0.4, 1, 2.5)));            // fractional trials
         assertEquals(0.0, Families.poisson().cumulativeProbability(-1, 1, 1, 1));
     }
 
