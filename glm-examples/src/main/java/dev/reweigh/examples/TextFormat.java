@@ -39,6 +39,9 @@ final class TextFormat {
         if (Double.isNaN(v)) {
             return "-";
         }
+        if (v < 1e-16) {
+            return "<1e-16"; // beyond what double-precision tail areas resolve in this report
+        }
         return v < 1e-4 ? String.format(Locale.ROOT, "%.1e", v) : String.format(Locale.ROOT, "%.4f", v);
     }
 
