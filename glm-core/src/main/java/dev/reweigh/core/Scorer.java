@@ -5,6 +5,7 @@ import dev.reweigh.families.Family;
 import dev.reweigh.families.InvalidDataException;
 import dev.reweigh.families.Link;
 import dev.reweigh.families.ReweighException;
+import dev.reweigh.families.UnknownNameException;
 import org.apache.commons.math3.distribution.NormalDistribution;
 
 import java.util.List;
@@ -104,6 +105,54 @@ public final class Scorer {
      */
     public List<String> inputColumns() {
         return design.inputNames;
+    }
+
+    /**
+     * Tells whether the scorer reads a column as a factor (text levels) rather than as a number,
+     * so that callers reading rows from text (CSV files, requests) can type each column.
+     *
+     * @param column one of {@link #inputColumns()}
+     * @return true for a factor column
+     * @throws dev.reweigh.families.UnknownNameException when the scorer does not read the column
+     * @since 0.1
+     */
+    public boolean isFactor(String column) {
+        return design.inputIsFactor[inputIndex(column)];
+    }
+
+    /**
+     * Returns the levels the model knows for a factor column, in the fit's level order.
+     *
+     * @param column a factor column of {@link #inputColumns()}
+     * @return an immutable list
+     * @throws dev.reweigh.families.UnknownNameException when the scorer does not read the column
+     *     as a factor
+     * @since 0.1
+     */
+    public List<String> levels(String column) {
+        int i = inputIndex(column);
+        if (!design.inputIsFactor[i]) {
+            throw new UnknownNameException("factor column", column, factorColumns());
+        }
+        return design.inputLevels.get(i);
+    }
+
+    private int inputIndex(String column) {
+        int i = design.inputNames.indexOf(column);
+        if (i < 0) {
+            throw new UnknownNameException("input column", column, design.inputNames);
+        }
+        return i;
+    }
+
+    private List<String> factorColumns() {
+        List<String> out = new java.util.ArrayList<>();
+        for (int i = 0; i < design.inputIsFactor.length; i++) {
+            if (design.inputIsFactor[i]) {
+                out.add(design.inputNames.get(i));
+            }
+        }
+        return out;
     }
 
     /**

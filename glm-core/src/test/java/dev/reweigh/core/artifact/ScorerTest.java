@@ -130,6 +130,17 @@ class ScorerTest {
     }
 
     @Test
+    void callersCanTypeEachInputColumn() {
+        Scorer s = Fixtures.ARTIFACT.scorer();
+        assertTrue(s.isFactor("region"));
+        assertFalse(s.isFactor("exposure"));
+        assertEquals(Portfolio.REGIONS, s.levels("region"));
+        assertEquals(Portfolio.VEHICLES, s.levels("vehicle"));
+        assertThrows(dev.reweigh.families.UnknownNameException.class, () -> s.levels("age"));
+        assertThrows(dev.reweigh.families.UnknownNameException.class, () -> s.isFactor("colour"));
+    }
+
+    @Test
     void logitMeansAreProbabilities() {
         Portfolio p = new Portfolio(400, 44);
         FittedModel fit = Glm.fit(ModelSpec.builder("k").trials("trials").family(Families.binomial())
