@@ -7,8 +7,11 @@ import dev.reweigh.core.ModelSpec;
 import dev.reweigh.core.Solver;
 import dev.reweigh.core.Table;
 import dev.reweigh.families.Families;
+import java.lang.management.GarbageCollectorMXBean;
 import java.lang.management.ManagementFactory;
 import java.lang.management.MemoryMXBean;
+import java.lang.management.MemoryUsage;
+import javax.management.NotificationEmitter;
 import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.concurrent.atomic.AtomicLong;
 
@@ -18,7 +21,8 @@ import java.util.concurrent.atomic.AtomicLong;
  * {@code java -Xmx400m -cp benchmarks.jar dev.reweigh.bench.FactorFitHeapProbe 1000000}.
  * It reports the table's own size (its column arrays), the heap in use before the fit, and the
  * highest heap in use sampled every millisecond during the fit (after a forced collection
- * before it), so the fit's extra memory is peak minus before.
+ * before it, so garbage counts too), and the largest heap left after any collection during the
+ * fit (live data, the better measure of what the fit needs).
  */
 public final class FactorFitHeapProbe {
     private FactorFitHeapProbe() {
@@ -32,7 +36,7 @@ public final class FactorFitHeapProbe {
      */
     public static void main(String[] args) throws InterruptedException {
         int n = args.length > 0 ? Integer.parseInt(args[0]) : 1_000_000;
-        Table t = FactorDesignBenchmark.table(n, 5, false);
+        Table t = FactorDesignBenchmark.table(n, 5, false, false);
         ModelSpec.Builder b = ModelSpec.builder("claims").family(Families.poisson()).logOffset("exposure");
         for (int j = 0; j < 10; j++) {
             b.numeric("x" + j);
@@ -48,6 +52,21 @@ public final class FactorFitHeapProbe {
         Thread.sleep(200);
         long before = mem.getHeapMemoryUsage().getUsed();
         AtomicLong peak = new AtomicLong(before);
+        AtomicLong liveAfterGc = new AtomicLong(before);
+        for (GarbageCollectorMXBean gc : ManagementFactory.getGarbageCollectorMXBeans()) {
+            ((NotificationEmitter) gc).addNotificationListener((notification, handback) -> {
+                if (!"com.sun.management.gc.notification".equals(notification.getType())) {
+                    return;
+                }
+                com.sun.management.GarbageCollectionNotificationInfo info = com.sun.management.GarbageCollectionNotificationInfo
+                        .from((javax.management.openmbean.CompositeData) notification.getUserData());
+                long used = 0;
+                for (MemoryUsage u : info.getGcInfo().getMemoryUsageAfterGc().values()) {
+                    used += u.getUsed();
+                }
+                liveAfterGc.accumulateAndGet(used, Math::max);
+            }, null, null);
+        }
         AtomicBoolean done = new AtomicBoolean();
         Thread sampler = new Thread(() -> {
             while (!done.get()) {
@@ -71,5 +90,9 @@ public final class FactorFitHeapProbe {
         System.out.printf("table column arrays %d MB; heap max %d MB; in use before fit %d MB; sampled peak %d MB;"
                 + " fit's extra peak %d MB = %.2f x the table%n", tableBytes >> 20, Runtime.getRuntime().maxMemory() >> 20,
                 before >> 20, peak.get() >> 20, (peak.get() - before) >> 20, (peak.get() - before) / (double) tableBytes);
+        System.out.printf("largest heap after a collection during the fit %d MB (includes non-heap pools' usage of"
+                + " the collector's view, e.g. metaspace is not counted); extra over before %d MB = %.2f x the table%n",
+                liveAfterGc.get() >> 20, (liveAfterGc.get() - before) >> 20,
+                (liveAfterGc.get() - before) / (double) tableBytes);
     }
 }

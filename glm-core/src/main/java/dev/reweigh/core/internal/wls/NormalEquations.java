@@ -4,17 +4,23 @@ import java.util.Arrays;
 
 /**
  * Solves the normal equations X'WX b = X'Wz from accumulated cross products, for fits that only
- * see the cross products (streaming fits). The matrix is scaled to unit diagonal and factored by
- * Cholesky in model order; a pivot below tolerance^2 marks its column aliased when the rank is
- * decided, and means numerical breakdown afterwards. The same rule as the in-memory Cholesky
- * route, so both decide rank alike. Workspaces are allocated once. Not thread-safe.
+ * see the cross products (streaming fits), and as a fast factorization for large p (factor
+ * designs with thousands of columns). The matrix is scaled to unit diagonal and factored as
+ * U'U by Cholesky in model order; a pivot below tolerance^2 marks its column aliased when the
+ * rank is decided, and means numerical breakdown afterwards (the same rule as the in-memory
+ * Cholesky route). An excluded column is treated as removed from the matrix.
+ *
+ * <p>Speed: the factorization is right-looking on the row-major upper factor, so its O(p^3)
+ * work is in axpy-shaped loops over contiguous row segments that HotSpot vectorises (a
+ * left-looking dot-product form runs one dependent FMA after another). The inverse is formed
+ * the same way. Workspaces are allocated once. Not thread-safe.
  */
 public final class NormalEquations {
     private final int p;
     private final double tolerance;
     private final double[] scale;
-    private final double[] chol;
-    private final double[] u;
+    private final double[] u;     // upper factor, row-major p x p (entries below the diagonal unused)
+    private final double[] work;
 
     /**
      * Creates a solver for p columns.
@@ -27,14 +33,14 @@ public final class NormalEquations {
         this.p = p;
         this.tolerance = Math.max(rankTolerance, 1e-7);
         this.scale = new double[p];
-        this.chol = new double[p * p];
-        this.u = new double[p];
+        this.u = new double[p * p];
+        this.work = new double[p];
     }
 
     /**
      * Factors the gram over the columns not excluded.
      *
-     * @param gram X'WX, p x p row-major, both triangles
+     * @param gram X'WX, p x p row-major; only the upper triangle (column &ge; row) is read
      * @param excluded columns left out; when {@code deciding}, aliased columns are added to it
      * @param deciding true to decide the rank (mark aliased columns), false to fail on a bad pivot
      * @return false if a pivot broke down while not deciding
@@ -51,20 +57,28 @@ public final class NormalEquations {
                 }
             }
         }
+        for (int i = 0; i < p; i++) {
+            int ri = i * p;
+            if (excluded[i]) {
+                Arrays.fill(u, ri, ri + p, 0.0);
+                continue;
+            }
+            double si = scale[i];
+            for (int k = i; k < p; k++) {
+                u[ri + k] = excluded[k] ? 0.0 : gram[ri + k] * si * scale[k];
+            }
+        }
         double tol2 = tolerance * tolerance;
-        Arrays.fill(chol, 0.0);
         for (int j = 0; j < p; j++) {
+            int rj = j * p;
             if (excluded[j]) {
                 continue;
             }
-            int rj = j * p;
-            double s = gram[rj + j] * scale[j] * scale[j];
-            for (int k = 0; k < j; k++) {
-                s -= chol[rj + k] * chol[rj + k];
-            }
+            double s = u[rj + j];
             if (!(s > tol2)) {
                 if (deciding) {
                     excluded[j] = true;
+                    Arrays.fill(u, rj, rj + p, 0.0);
                     continue;
                 }
                 if (!(s > 0)) {
@@ -72,17 +86,29 @@ public final class NormalEquations {
                 }
             }
             double d = Math.sqrt(s);
-            chol[rj + j] = d;
+            u[rj + j] = d;
+            double inv = 1.0 / d;
+            for (int k = j + 1; k < p; k++) {
+                u[rj + k] *= inv;
+            }
+            // trailing update: row i -= u[j][i] * row j, over the contiguous columns i..p-1
             for (int i = j + 1; i < p; i++) {
-                if (excluded[i]) {
+                double f = u[rj + i];
+                if (f == 0.0 || excluded[i]) {
                     continue;
                 }
                 int ri = i * p;
-                double t = gram[ri + j] * scale[i] * scale[j];
-                for (int k = 0; k < j; k++) {
-                    t -= chol[ri + k] * chol[rj + k];
+                for (int k = i; k < p; k++) {
+                    u[ri + k] = Math.fma(-f, u[rj + k], u[ri + k]);
                 }
-                chol[ri + j] = t / d;
+            }
+        }
+        // columns excluded on the way still carry numbers from the rows above them: clear them
+        for (int k = 0; k < p; k++) {
+            if (excluded[k]) {
+                for (int i = 0; i < k; i++) {
+                    u[i * p + k] = 0.0;
+                }
             }
         }
         return true;
@@ -96,29 +122,37 @@ public final class NormalEquations {
      * @param beta receives the solution
      */
     public void solve(double[] xtwz, boolean[] excluded, double[] beta) {
+        double[] c = work;
+        for (int j = 0; j < p; j++) {
+            c[j] = excluded[j] ? 0.0 : xtwz[j] * scale[j];
+        }
+        // U' y = c, column-oriented so that row j of U is read contiguously
         for (int j = 0; j < p; j++) {
             if (excluded[j]) {
-                u[j] = 0;
                 continue;
             }
-            double s = xtwz[j] * scale[j];
-            for (int k = 0; k < j; k++) {
-                s -= chol[j * p + k] * u[k];
+            int rj = j * p;
+            double y = c[j] / u[rj + j];
+            c[j] = y;
+            for (int k = j + 1; k < p; k++) {
+                c[k] = Math.fma(-u[rj + k], y, c[k]);
             }
-            u[j] = s / chol[j * p + j];
         }
+        // U b = y
         for (int j = p - 1; j >= 0; j--) {
             if (excluded[j]) {
+                beta[j] = 0.0;
                 continue;
             }
-            double s = u[j];
+            int rj = j * p;
+            double s = c[j];
             for (int k = j + 1; k < p; k++) {
-                s -= chol[k * p + j] * u[k];
+                s = Math.fma(-u[rj + k], c[k], s);
             }
-            u[j] = s / chol[j * p + j];
+            c[j] = s / u[rj + j];
         }
         for (int j = 0; j < p; j++) {
-            beta[j] = excluded[j] ? 0.0 : u[j] * scale[j];
+            beta[j] = excluded[j] ? 0.0 : c[j] * scale[j];
         }
     }
 
@@ -130,23 +164,30 @@ public final class NormalEquations {
      * @return p x p
      */
     public double[][] inverse(boolean[] excluded) {
-        double[] linv = new double[p * p];
-        for (int j = 0; j < p; j++) {
+        // V = U^-1 (upper), row by row from the bottom: V[j][.] = (e_j - sum_m>j U[j][m] V[m][.]) / U[j][j]
+        double[] v = new double[p * p];
+        for (int j = p - 1; j >= 0; j--) {
             if (excluded[j]) {
                 continue;
             }
-            linv[j * p + j] = 1.0 / chol[j * p + j];
-            for (int i = j + 1; i < p; i++) {
-                if (excluded[i]) {
+            int rj = j * p;
+            double inv = 1.0 / u[rj + j];
+            for (int m = j + 1; m < p; m++) {
+                double f = u[rj + m];
+                if (f == 0.0 || excluded[m]) {
                     continue;
                 }
-                double s = 0;
-                for (int k = j; k < i; k++) {
-                    s -= chol[i * p + k] * linv[k * p + j];
+                int rm = m * p;
+                for (int k = m; k < p; k++) {
+                    v[rj + k] = Math.fma(-f, v[rm + k], v[rj + k]);
                 }
-                linv[i * p + j] = s / chol[i * p + i];
             }
+            for (int k = j + 1; k < p; k++) {
+                v[rj + k] *= inv;
+            }
+            v[rj + j] = inv;
         }
+        // (U'U)^-1 = V V': entry (a, b) is the dot product of rows a and b from column max(a, b) on
         double[][] cov = new double[p][p];
         for (int a = 0; a < p; a++) {
             Arrays.fill(cov[a], Double.NaN);
@@ -155,17 +196,30 @@ public final class NormalEquations {
             if (excluded[a]) {
                 continue;
             }
+            int ra = a * p;
             for (int b = a; b < p; b++) {
                 if (excluded[b]) {
                     continue;
                 }
-                double s = 0;
-                for (int k = b; k < p; k++) {
-                    s += linv[k * p + a] * linv[k * p + b];
+                int rb = b * p;
+                // four partial sums break the dependency chain of one long sum
+                double s0 = 0;
+                double s1 = 0;
+                double s2 = 0;
+                double s3 = 0;
+                int k = b;
+                for (; k + 4 <= p; k += 4) {
+                    s0 = Math.fma(v[ra + k], v[rb + k], s0);
+                    s1 = Math.fma(v[ra + k + 1], v[rb + k + 1], s1);
+                    s2 = Math.fma(v[ra + k + 2], v[rb + k + 2], s2);
+                    s3 = Math.fma(v[ra + k + 3], v[rb + k + 3], s3);
                 }
-                double v = s * scale[a] * scale[b];
-                cov[a][b] = v;
-                cov[b][a] = v;
+                for (; k < p; k++) {
+                    s0 = Math.fma(v[ra + k], v[rb + k], s0);
+                }
+                double val = ((s0 + s1) + (s2 + s3)) * scale[a] * scale[b];
+                cov[a][b] = val;
+                cov[b][a] = val;
             }
         }
         return cov;
