@@ -430,8 +430,8 @@ public final class Table {
          *
          * @return an immutable table
          * @throws ReweighException when there is no column
-         * @throws InvalidDataException when the columns differ in length (naming the column)
-         *     (the message names each column's length)
+         * @throws InvalidDataException when the columns differ in length (the message names the
+         *     first column whose length differs and lists each column's length)
          * @since 0.1
          */
         public Table build() {
