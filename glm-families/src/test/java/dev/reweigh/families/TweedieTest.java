@@ -171,6 +171,7 @@ class TweedieTest {
             // Normal limit with the skewness correction: F(mu) = 1/2 + gamma / (6 sqrt(2 pi)), gamma = p sqrt(phi) mu^(p/2-1).
             double skewness = 1.5 * Math.sqrt(phi) * Math.pow(mu, 1.5 / 2 - 1);
             assertEquals(0.5 + skewness / (6 * Math.sqrt(2 * Math.PI)), f.cumulativeProbability(mu, mu, phi, 1.0), 1e-12);
+            // Phi(-1) = 0.158655 (from memory), up to the skewness correction of order sqrt(phi).
             assertEquals(0.15865525393145707, f.cumulativeProbability(mu - sd, mu, phi, 1.0), 1e-3);
             // The density is as finite and accurate as ever: compare with the saddlepoint density.
             double y = mu + sd;
