@@ -15,9 +15,10 @@ import java.util.concurrent.Callable;
  * @since 0.1
  */
 @Command(name = "demo", mixinStandardHelpOptions = true,
-        description = {"Simulates a motor portfolio from known models, fits frequency, severity and pure premium,",
-            "compares families and links, tests rating factors, prints estimates beside the truth and writes",
-            "model artifacts, a scored CSV and charts."})
+        description = {"Runs the synthetic motor-portfolio demo end to end.",
+            "Simulates a portfolio from known models; fits frequency, severity and pure premium; compares families"
+                + " and links; tests rating factors; prints estimates beside the truth; writes model artifacts, a"
+                + " scored CSV and charts to the output folder."})
 public final class DemoCommand implements Callable<Integer> {
     @CommandLine.Spec
     private CommandLine.Model.CommandSpec spec;

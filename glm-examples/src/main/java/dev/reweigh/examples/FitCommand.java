@@ -33,9 +33,9 @@ import java.util.concurrent.Callable;
  * @since 0.1
  */
 @Command(name = "fit", mixinStandardHelpOptions = true, sortOptions = false,
-        description = {"Fits a generalized linear model to a CSV file and reports coefficients, deviance,",
-            "dispersion, log-likelihood, AIC, BIC and warnings.",
-            "Terms appear in the model in the order their options are given."})
+        description = {"Fits a model to a CSV file and reports it.",
+            "Prints coefficients (with relativities under a log link), deviance, dispersion, log-likelihood, AIC, BIC"
+                + " and warnings; terms enter the model in the order their options are given."})
 public final class FitCommand implements Callable<Integer> {
     @CommandLine.Spec
     private CommandLine.Model.CommandSpec spec;

@@ -39,7 +39,7 @@ public final class FitReport {
         ModelSpec spec = fit.spec();
         StringBuilder sb = new StringBuilder();
         sb.append("response    ").append(spec.response());
-        spec.trials().ifPresent(t -> sb.append(" successes out of ").append(t));
+        spec.trials().ifPresent(t -> sb.append(" out of ").append(t));
         sb.append(String.format(Locale.ROOT, " (%s; %d of %d rows used)%n", source, fit.rowCount(),
                 fit.data().rowCount()));
         sb.append("model       ").append(fit.family().name()).append(" family, ").append(fit.link().name())

@@ -38,8 +38,9 @@ import java.util.concurrent.Callable;
  * @since 0.1
  */
 @Command(name = "score", mixinStandardHelpOptions = true, sortOptions = false,
-        description = {"Scores the rows of a CSV file with a saved model (see fit --save-model): appends",
-            "predicted_mean, predicted_low, predicted_high (95% interval) and linear_predictor."})
+        description = {"Scores the rows of a CSV file with a saved model.",
+            "Appends predicted_mean, predicted_low and predicted_high (a 95%% interval) and linear_predictor to each"
+                + " row; the model comes from fit --save-model."})
 public final class ScoreCommand implements Callable<Integer> {
     /** Interval level of the appended range. */
     static final double LEVEL = 0.95;
