@@ -66,6 +66,7 @@ class CliBadInputTest {
         write("dup-header.csv", "claims,exposure,claims\n1,0.5,2\n");
         write("no-name.csv", "claims,,region\n1,0.5,coast\n");
         write("empty.csv", "");
+        write("plain-file", "not a folder");
         Files.write(dir.resolve("latin1.csv"), "claims,r\u00e9gion\n1,c\u00f4te\n".getBytes(StandardCharsets.ISO_8859_1));
         Files.createDirectories(dir.resolve("folder.csv"));
 
@@ -180,7 +181,10 @@ class CliBadInputTest {
                 raw("unknown command", List.of("fitt"), "fitt"),
                 raw("interaction of one column", List.of("fit", "--data", "@good.csv", "--response", "claims",
                         "--family", "poisson", "--interaction", "region"), "--interaction", "region"),
-                raw("portfolio size not a number", List.of("demo", "--policies", "many"), "many"));
+                raw("portfolio size not a number", List.of("demo", "--policies", "many"), "many"),
+                raw("portfolio too small", List.of("demo", "--policies", "10", "--out", "@demo-small"), "2000", "10"),
+                raw("demo output folder under a file", List.of("demo", "--out", "@plain-file/out"), "plain-file",
+                        "output folder"));
     }
 
     @ParameterizedTest(name = "{0}")

@@ -38,6 +38,7 @@ public final class DemoCharts {
     private static final int MAX_POINTS = 4_000;
     private static final Color OBSERVED = new Color(0x1b, 0x6c, 0xa8);
     private static final Color FITTED = new Color(0xd9, 0x5f, 0x02);
+    private static final Color TRUTH = new Color(0x33, 0x99, 0x33);
     private static final Color BARS = new Color(0xcf, 0xd8, 0xdc);
 
     static {
@@ -58,17 +59,21 @@ public final class DemoCharts {
      * @param exposure total exposure per level
      * @param observed observed claims per unit of exposure per level
      * @param fitted fitted claims per unit of exposure per level
+     * @param truth the true expected claims per unit of exposure per level, or null when unknown
      * @throws DataFileException when the file cannot be written
      * @since 0.1
      */
     public static void observedVersusFitted(Path file, String factor, List<String> levels, double[] exposure,
-                                            double[] observed, double[] fitted) {
+                                            double[] observed, double[] fitted, double[] truth) {
         DefaultCategoryDataset bars = new DefaultCategoryDataset();
         DefaultCategoryDataset lines = new DefaultCategoryDataset();
         for (int i = 0; i < levels.size(); i++) {
             bars.addValue(exposure[i], "exposure (policy-years)", levels.get(i));
             lines.addValue(observed[i], "observed frequency", levels.get(i));
             lines.addValue(fitted[i], "fitted frequency", levels.get(i));
+            if (truth != null) {
+                lines.addValue(truth[i], "true expected frequency", levels.get(i));
+            }
         }
         CategoryAxis axis = new CategoryAxis(factor);
         axis.setCategoryLabelPositions(CategoryLabelPositions.UP_45);
@@ -88,6 +93,8 @@ public final class DemoCharts {
         lineRenderer.setSeriesStroke(0, new BasicStroke(2f));
         lineRenderer.setSeriesStroke(1, new BasicStroke(2f, BasicStroke.CAP_ROUND, BasicStroke.JOIN_ROUND, 1f,
                 new float[] {6f, 4f}, 0f));
+        lineRenderer.setSeriesPaint(2, TRUTH);
+        lineRenderer.setSeriesStroke(2, new BasicStroke(1.5f));
         plot.setRenderer(1, lineRenderer);
         plot.setDatasetRenderingOrder(DatasetRenderingOrder.FORWARD);
         plot.setBackgroundPaint(Color.WHITE);

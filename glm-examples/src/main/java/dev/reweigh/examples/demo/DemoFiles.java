@@ -41,15 +41,11 @@ final class DemoFiles {
 
     static List<Path> write(Path folder, MotorPortfolio portfolio, Inference frequency, Inference severity,
                             FittedModel tweedie, PrintWriter out) {
-        try {
-            Files.createDirectories(folder);
-        } catch (IOException e) {
-            throw new DataFileException(folder.toString(), "cannot create the output folder: " + e.getMessage(), e);
-        }
+        prepare(folder);
         List<Path> files = new ArrayList<>();
         files.addAll(DemoArtifacts.write(folder, frequency.fit(), severity.fit(), tweedie));
         files.add(scored(folder.resolve(SCORED), portfolio.policies(), frequency, severity, Inference.of(tweedie)));
-        files.add(frequencyChart(folder.resolve(CHART_FREQUENCY), frequency.fit()));
+        files.add(frequencyChart(folder.resolve(CHART_FREQUENCY), frequency.fit(), portfolio.truth()));
         Path residuals = folder.resolve(CHART_RESIDUALS);
         DemoCharts.residualsVersusFitted(residuals, "Average claim amount (Gamma, log link): deviance residuals",
                 severity.fit().fittedValues(), severity.residuals().deviance(),
@@ -65,8 +61,23 @@ final class DemoFiles {
         out.println("  scored-policies.csv: expected claims for the policy's exposure, frequency per policy-year,");
         out.println("  severity, pure premium per policy-year (with 95% ranges) and the Tweedie pure premium;");
         out.println("  the *.json files are the fitted models, readable by 'reweigh score --model FILE'.");
+        out.println("  In " + CHART_FREQUENCY + " observed and fitted frequencies agree for every region: a Poisson model");
+        out.println("  with a log link reproduces the claim total of each level of its factors; the true expected");
+        out.println("  frequency shows how far chance moved each region.");
         out.flush();
         return files;
+    }
+
+    /** Creates the output folder (early, so that a bad --out fails before the fitting). */
+    static void prepare(Path folder) {
+        try {
+            Files.createDirectories(folder);
+        } catch (IOException e) {
+            String reason = e instanceof java.nio.file.FileSystemException
+                    && ((java.nio.file.FileSystemException) e).getReason() != null
+                    ? ((java.nio.file.FileSystemException) e).getReason() : e.getClass().getSimpleName();
+            throw new DataFileException(folder.toString(), "cannot create the output folder (" + reason + ")", e);
+        }
     }
 
     private static long size(Path p) {
@@ -116,29 +127,34 @@ final class DemoFiles {
         return new java.math.BigDecimal(v).setScale(decimals, java.math.RoundingMode.HALF_EVEN).doubleValue();
     }
 
-    private static Path frequencyChart(Path file, FittedModel poisson) {
+    private static Path frequencyChart(Path file, FittedModel poisson, TrueModel truth) {
         Table t = poisson.data();
         List<String> levels = t.levels(REGION);
         int[] codes = t.codes(REGION);
         double[] exposure = t.numeric(EXPOSURE);
         double[] claims = t.numeric(CLAIMS);
+        double[] mileage = t.numeric(MILEAGE);
         double[] fitted = poisson.fittedValues();
         int[] used = poisson.usedRows();
         int m = levels.size();
         double[] e = new double[m];
         double[] observed = new double[m];
         double[] expected = new double[m];
+        double[] trueExpected = new double[m];
         for (int k = 0; k < used.length; k++) {
             int i = used[k];
             e[codes[i]] += exposure[i];
             observed[codes[i]] += claims[i];
             expected[codes[i]] += fitted[k];
+            trueExpected[codes[i]] += exposure[i] * truth.frequency(t.value(DRIVER_AGE, i), t.value(POWER, i),
+                    t.value(REGION, i), mileage[i]);
         }
         for (int j = 0; j < m; j++) {
             observed[j] /= e[j];
             expected[j] /= e[j];
+            trueExpected[j] /= e[j];
         }
-        DemoCharts.observedVersusFitted(file, REGION, levels, e, observed, expected);
+        DemoCharts.observedVersusFitted(file, REGION, levels, e, observed, expected, trueExpected);
         return file;
     }
 }

@@ -123,6 +123,7 @@ public final class MotorDemo {
 
     private DemoResult run() {
         long started = System.nanoTime();
+        DemoFiles.prepare(settings.output());
         MotorPortfolio portfolio = MotorPortfolio.simulate(truth, settings.policies(), settings.seed());
         Table policies = portfolio.policies();
         Table claimants = portfolio.policiesWithClaims();
