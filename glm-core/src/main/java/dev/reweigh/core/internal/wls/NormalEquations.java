@@ -16,6 +16,8 @@ import java.util.Arrays;
  * the same way. Workspaces are allocated once. Not thread-safe.
  */
 public final class NormalEquations {
+    /** Rows per panel of the blocked factorization (a panel of 32 rows of p = 1000 is 256 KB, in L2). */
+    private static final int PANEL = 32;
     private final int p;
     private final double tolerance;
     private final double[] scale;
@@ -69,37 +71,34 @@ public final class NormalEquations {
             }
         }
         double tol2 = tolerance * tolerance;
-        for (int j = 0; j < p; j++) {
-            int rj = j * p;
-            if (excluded[j]) {
-                continue;
-            }
-            double s = u[rj + j];
-            if (!(s > tol2)) {
-                if (deciding) {
-                    excluded[j] = true;
-                    Arrays.fill(u, rj, rj + p, 0.0);
-                    continue;
-                }
-                if (!(s > 0)) {
+        // Blocked by panels of PANEL rows: within a panel, each row is finished and applied to the
+        // rest of the panel; then the panel is applied to every later row while that row sits in
+        // L1. Every entry still receives its updates in increasing row order, so the result is
+        // the same as the unblocked loop, bit for bit; only the memory traffic differs.
+        for (int jb = 0; jb < p; jb += PANEL) {
+            int je = Math.min(p, jb + PANEL);
+            for (int j = jb; j < je; j++) {
+                if (!finishRow(j, excluded, deciding, tol2)) {
                     return false;
                 }
+                int rj = j * p;
+                for (int i = j + 1; i < je; i++) {
+                    double f = u[rj + i];
+                    if (f != 0.0 && !excluded[i]) {
+                        axpy(-f, rj, i * p, i);
+                    }
+                }
             }
-            double d = Math.sqrt(s);
-            u[rj + j] = d;
-            double inv = 1.0 / d;
-            for (int k = j + 1; k < p; k++) {
-                u[rj + k] *= inv;
-            }
-            // trailing update: row i -= u[j][i] * row j, over the contiguous columns i..p-1
-            for (int i = j + 1; i < p; i++) {
-                double f = u[rj + i];
-                if (f == 0.0 || excluded[i]) {
+            for (int i = je; i < p; i++) {
+                if (excluded[i]) {
                     continue;
                 }
                 int ri = i * p;
-                for (int k = i; k < p; k++) {
-                    u[ri + k] = Math.fma(-f, u[rj + k], u[ri + k]);
+                for (int j = jb; j < je; j++) {
+                    double f = u[j * p + i];
+                    if (f != 0.0) {
+                        axpy(-f, j * p, ri, i);
+                    }
                 }
             }
         }
@@ -112,6 +111,39 @@ public final class NormalEquations {
             }
         }
         return true;
+    }
+
+    /** Takes the pivot of row j (already updated by all rows above it) and scales the row. */
+    private boolean finishRow(int j, boolean[] excluded, boolean deciding, double tol2) {
+        if (excluded[j]) {
+            return true;
+        }
+        int rj = j * p;
+        double s = u[rj + j];
+        if (!(s > tol2)) {
+            if (deciding) {
+                excluded[j] = true;
+                Arrays.fill(u, rj, rj + p, 0.0);
+                return true;
+            }
+            if (!(s > 0)) {
+                return false;
+            }
+        }
+        double d = Math.sqrt(s);
+        u[rj + j] = d;
+        double inv = 1.0 / d;
+        for (int k = j + 1; k < p; k++) {
+            u[rj + k] *= inv;
+        }
+        return true;
+    }
+
+    /** u[to + k] += a * u[from + k] for k = first..p-1. */
+    private void axpy(double a, int from, int to, int first) {
+        for (int k = first; k < p; k++) {
+            u[to + k] = Math.fma(a, u[from + k], u[to + k]);
+        }
     }
 
     /**
@@ -187,7 +219,31 @@ public final class NormalEquations {
             }
             v[rj + j] = inv;
         }
-        // (U'U)^-1 = V V': entry (a, b) is the dot product of rows a and b from column max(a, b) on
+        // (U'U)^-1 = V V': row a is the sum over k >= a of V[a][k] times column k of V, taken as
+        // row k of the transpose T so that the inner loop is an axpy over contiguous memory
+        double[] t = new double[p * p];
+        for (int m = 0; m < p; m++) {
+            for (int k = m; k < p; k++) {
+                t[k * p + m] = v[m * p + k];
+            }
+        }
+        double[] c = new double[p * p];
+        for (int a = 0; a < p; a++) {
+            if (excluded[a]) {
+                continue;
+            }
+            int ra = a * p;
+            for (int k = a; k < p; k++) {
+                double f = v[ra + k];
+                if (f == 0.0) {
+                    continue;
+                }
+                int rk = k * p;
+                for (int m = 0; m <= k; m++) {
+                    c[ra + m] = Math.fma(f, t[rk + m], c[ra + m]);
+                }
+            }
+        }
         double[][] cov = new double[p][p];
         for (int a = 0; a < p; a++) {
             Arrays.fill(cov[a], Double.NaN);
@@ -196,28 +252,11 @@ public final class NormalEquations {
             if (excluded[a]) {
                 continue;
             }
-            int ra = a * p;
             for (int b = a; b < p; b++) {
                 if (excluded[b]) {
                     continue;
                 }
-                int rb = b * p;
-                // four partial sums break the dependency chain of one long sum
-                double s0 = 0;
-                double s1 = 0;
-                double s2 = 0;
-                double s3 = 0;
-                int k = b;
-                for (; k + 4 <= p; k += 4) {
-                    s0 = Math.fma(v[ra + k], v[rb + k], s0);
-                    s1 = Math.fma(v[ra + k + 1], v[rb + k + 1], s1);
-                    s2 = Math.fma(v[ra + k + 2], v[rb + k + 2], s2);
-                    s3 = Math.fma(v[ra + k + 3], v[rb + k + 3], s3);
-                }
-                for (; k < p; k++) {
-                    s0 = Math.fma(v[ra + k], v[rb + k], s0);
-                }
-                double val = ((s0 + s1) + (s2 + s3)) * scale[a] * scale[b];
+                double val = c[a * p + b] * scale[a] * scale[b];
                 cov[a][b] = val;
                 cov[b][a] = val;
             }
