@@ -273,8 +273,9 @@ public final class MotorDemo {
         }
         grid.row("true value", fixed(truth.severityDispersion(), 4), "", "", fixed(truth.severityShape(), 3));
         out.print(grid.render("  "));
-        out.println("  the deviance estimate is biased for Gamma data with small shape; Pearson and maximum");
-        out.println("  likelihood should sit close to the truth.");
+        out.println("  Pearson and maximum likelihood estimate phi consistently; the deviance estimate runs high when");
+        out.println("  the Gamma shape is small, as here. Ranges: chi-square for the moment estimates, likelihood"
+                + " for ML.");
         out.flush();
         return estimates;
     }
