@@ -7,7 +7,7 @@ import org.apache.commons.math3.special.Beta;
  * Negative binomial counts with known theta: variance mu + mu^2 / theta; a prior weight is a
  * frequency weight. The dispersion is fixed at 1 (theta carries the extra variation).
  */
-final class NegativeBinomialFamily extends AbstractFamily {
+final class NegativeBinomialFamily extends CountFamily {
     private final double theta;
 
     NegativeBinomialFamily(double theta) {
@@ -45,53 +45,17 @@ final class NegativeBinomialFamily extends AbstractFamily {
         return Math.max(0.0, d);
     }
 
-    @Override
-    public boolean isValidResponse(double y, double priorWeight) {
-        return y >= 0.0 && isWhole(y);
-    }
-
-    @Override
-    public String responseDomain() {
-        return "a non-negative whole number";
-    }
-
-    @Override
-    public boolean isValidMean(double mu) {
-        return mu > 0.0 && mu < Double.POSITIVE_INFINITY;
-    }
-
-    @Override
-    public String meanDomain() {
-        return "a positive finite number";
-    }
-
-    @Override
-    public double startingMean(double y, double priorWeight) {
-        return y + 0.1;
-    }
-
-    @Override
-    public boolean hasDensity() {
-        return true;
-    }
-
     /**
      * P(Y = y) = Gamma(y + theta) / (Gamma(theta) y!) p^theta (1-p)^y with p = theta / (theta + mu),
      * evaluated as theta / (y + theta) times a binomial term with theta "successes" out of
      * y + theta, so that the saddle-point form of the binomial term applies.
      */
     @Override
-    public double logDensity(double y, double mu, double dispersion, double priorWeight) {
-        checkDensityArguments(mu, 1.0, priorWeight);
-        double k = nearestWhole(y);
-        if (!(k >= 0.0)) {
-            return Double.NEGATIVE_INFINITY;
-        }
+    double logProbability(double k, double mu) {
         double total = k + theta;
         double p = theta / (theta + mu);
         double q = mu / (theta + mu);
-        double logPmf = Math.log(theta / total) + ProbabilityMath.logBinomialTerm(theta, total, k, p, q);
-        return priorWeight * logPmf;
+        return Math.log(theta / total) + ProbabilityMath.logBinomialTerm(theta, total, k, p, q);
     }
 
     /**
@@ -100,12 +64,7 @@ final class NegativeBinomialFamily extends AbstractFamily {
      * ({@link Saddlepoint}).
      */
     @Override
-    public double cumulativeProbability(double y, double mu, double dispersion, double priorWeight) {
-        checkDensityArguments(mu, 1.0, priorWeight);
-        double k = PoissonFamily.floorCount(y);
-        if (k < 0) {
-            return 0.0;
-        }
+    double probabilityUpTo(double k, double mu) {
         if (Math.min(theta, mu) > Saddlepoint.LARGE) {
             return saddlepointDistribution(k, mu);
         }
@@ -121,11 +80,6 @@ final class NegativeBinomialFamily extends AbstractFamily {
         double u = 2.0 * Math.sinh(0.5 * thetaDifference) * Math.sqrt(variance(corrected));
         double skewness = (theta + 2.0 * mu) / Math.sqrt(theta * mu * (theta + mu));
         return Saddlepoint.distributionFunction(w, u, skewness);
-    }
-
-    @Override
-    public boolean isDiscrete() {
-        return true;
     }
 
     /**
@@ -158,15 +112,5 @@ final class NegativeBinomialFamily extends AbstractFamily {
         }
         double signed = upper > lower ? integral : -integral;
         return signed / Math.pow(variance(mu), 1.0 / 6.0);
-    }
-
-    @Override
-    public Link defaultLink() {
-        return Links.log();
-    }
-
-    @Override
-    public boolean isDispersionFixed() {
-        return true;
     }
 }

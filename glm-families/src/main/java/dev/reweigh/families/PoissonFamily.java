@@ -3,7 +3,7 @@ package dev.reweigh.families;
 import org.apache.commons.math3.special.Gamma;
 
 /** Counts with variance equal to the mean; a prior weight is a frequency weight. */
-final class PoissonFamily extends AbstractFamily {
+final class PoissonFamily extends CountFamily {
     static final PoissonFamily INSTANCE = new PoissonFamily();
 
     private PoissonFamily() {
@@ -26,43 +26,8 @@ final class PoissonFamily extends AbstractFamily {
     }
 
     @Override
-    public boolean isValidResponse(double y, double priorWeight) {
-        return y >= 0.0 && isWhole(y);
-    }
-
-    @Override
-    public String responseDomain() {
-        return "a non-negative whole number";
-    }
-
-    @Override
-    public boolean isValidMean(double mu) {
-        return mu > 0.0 && mu < Double.POSITIVE_INFINITY;
-    }
-
-    @Override
-    public String meanDomain() {
-        return "a positive finite number";
-    }
-
-    @Override
-    public double startingMean(double y, double priorWeight) {
-        return y + 0.1;
-    }
-
-    @Override
-    public boolean hasDensity() {
-        return true;
-    }
-
-    @Override
-    public double logDensity(double y, double mu, double dispersion, double priorWeight) {
-        checkDensityArguments(mu, 1.0, priorWeight);
-        double k = nearestWhole(y);
-        if (!(k >= 0.0)) {
-            return Double.NEGATIVE_INFINITY;
-        }
-        return priorWeight * ProbabilityMath.logPoisson(k, mu);
+    double logProbability(double k, double mu) {
+        return ProbabilityMath.logPoisson(k, mu);
     }
 
     /**
@@ -70,12 +35,7 @@ final class PoissonFamily extends AbstractFamily {
      * continuity-corrected saddlepoint approximation ({@link Saddlepoint}).
      */
     @Override
-    public double cumulativeProbability(double y, double mu, double dispersion, double priorWeight) {
-        checkDensityArguments(mu, 1.0, priorWeight);
-        double k = floorCount(y);
-        if (k < 0) {
-            return 0.0;
-        }
+    double probabilityUpTo(double k, double mu) {
         if (mu > Saddlepoint.LARGE) {
             return saddlepointDistribution(k, mu);
         }
@@ -90,29 +50,8 @@ final class PoissonFamily extends AbstractFamily {
         return Saddlepoint.distributionFunction(w, u, 1.0 / Math.sqrt(mu));
     }
 
-    /** Largest whole count not above y, treating a value within tolerance of a whole number as that number. */
-    static double floorCount(double y) {
-        double whole = nearestWhole(y);
-        return Double.isNaN(whole) ? Math.floor(y) : whole;
-    }
-
-    @Override
-    public boolean isDiscrete() {
-        return true;
-    }
-
     @Override
     public double anscombeResidual(double y, double mu) {
         return PowerVariance.anscombeResidual(y, mu, 1.0);
-    }
-
-    @Override
-    public Link defaultLink() {
-        return Links.log();
-    }
-
-    @Override
-    public boolean isDispersionFixed() {
-        return true;
     }
 }
