@@ -3,11 +3,11 @@ package dev.reweigh.families;
 import org.apache.commons.math3.special.Gamma;
 
 /** Positive response with variance phi mu^2 / w (constant coefficient of variation). */
-final class GammaFamily extends AbstractFamily {
+final class GammaFamily extends PositiveContinuousFamily {
     static final GammaFamily INSTANCE = new GammaFamily();
 
     private GammaFamily() {
-        super("gamma");
+        super("gamma", 2.0);
     }
 
     @Override
@@ -18,41 +18,6 @@ final class GammaFamily extends AbstractFamily {
     @Override
     public double variance(double mu) {
         return mu * mu;
-    }
-
-    @Override
-    public double unitDeviance(double y, double mu) {
-        return PowerVariance.unitDeviance(y, mu, 2.0);
-    }
-
-    @Override
-    public boolean isValidResponse(double y, double priorWeight) {
-        return y > 0.0 && y < Double.POSITIVE_INFINITY;
-    }
-
-    @Override
-    public String responseDomain() {
-        return "a positive finite number";
-    }
-
-    @Override
-    public boolean isValidMean(double mu) {
-        return mu > 0.0 && mu < Double.POSITIVE_INFINITY;
-    }
-
-    @Override
-    public String meanDomain() {
-        return "a positive finite number";
-    }
-
-    @Override
-    public double startingMean(double y, double priorWeight) {
-        return y;
-    }
-
-    @Override
-    public boolean hasDensity() {
-        return true;
     }
 
     /**
@@ -96,22 +61,7 @@ final class GammaFamily extends AbstractFamily {
     }
 
     @Override
-    public boolean isDiscrete() {
-        return false;
-    }
-
-    @Override
-    public double anscombeResidual(double y, double mu) {
-        return PowerVariance.anscombeResidual(y, mu, 2.0);
-    }
-
-    @Override
     public Link defaultLink() {
         return Links.inverse();
-    }
-
-    @Override
-    public boolean isDispersionFixed() {
-        return false;
     }
 }

@@ -5,11 +5,11 @@ package dev.reweigh.families;
  * R. S. Chhikara and J. L. Folks (1989), The Inverse Gaussian Distribution, with shape
  * lambda = w / phi.
  */
-final class InverseGaussianFamily extends AbstractFamily {
+final class InverseGaussianFamily extends PositiveContinuousFamily {
     static final InverseGaussianFamily INSTANCE = new InverseGaussianFamily();
 
     private InverseGaussianFamily() {
-        super("inverse-gaussian");
+        super("inverse-gaussian", 3.0);
     }
 
     @Override
@@ -20,41 +20,6 @@ final class InverseGaussianFamily extends AbstractFamily {
     @Override
     public double variance(double mu) {
         return mu * mu * mu;
-    }
-
-    @Override
-    public double unitDeviance(double y, double mu) {
-        return PowerVariance.unitDeviance(y, mu, 3.0);
-    }
-
-    @Override
-    public boolean isValidResponse(double y, double priorWeight) {
-        return y > 0.0 && y < Double.POSITIVE_INFINITY;
-    }
-
-    @Override
-    public String responseDomain() {
-        return "a positive finite number";
-    }
-
-    @Override
-    public boolean isValidMean(double mu) {
-        return mu > 0.0 && mu < Double.POSITIVE_INFINITY;
-    }
-
-    @Override
-    public String meanDomain() {
-        return "a positive finite number";
-    }
-
-    @Override
-    public double startingMean(double y, double priorWeight) {
-        return y;
-    }
-
-    @Override
-    public boolean hasDensity() {
-        return true;
     }
 
     @Override
@@ -92,22 +57,7 @@ final class InverseGaussianFamily extends AbstractFamily {
     }
 
     @Override
-    public boolean isDiscrete() {
-        return false;
-    }
-
-    @Override
-    public double anscombeResidual(double y, double mu) {
-        return PowerVariance.anscombeResidual(y, mu, 3.0);
-    }
-
-    @Override
     public Link defaultLink() {
         return Links.inverseSquared();
-    }
-
-    @Override
-    public boolean isDispersionFixed() {
-        return false;
     }
 }
