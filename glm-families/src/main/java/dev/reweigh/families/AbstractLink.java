@@ -1,6 +1,9 @@
 package dev.reweigh.families;
 
-/** Shared identity of links: equal when their canonical names are equal. */
+/**
+ * Shared identity of links (equal when their canonical names are equal) and the eta domain of the
+ * links defined on the whole real line; a link with a narrower domain overrides the two eta methods.
+ */
 abstract class AbstractLink implements Link {
     private final String name;
 
@@ -11,6 +14,16 @@ abstract class AbstractLink implements Link {
     @Override
     public final String name() {
         return name;
+    }
+
+    @Override
+    public boolean isValidEta(double eta) {
+        return Double.isFinite(eta);
+    }
+
+    @Override
+    public String etaDomain() {
+        return "any finite number";
     }
 
     @Override

@@ -42,14 +42,4 @@ final class CauchitLink extends AbstractLink {
         }
         return 1.0 / (Math.PI * (1.0 + eta * eta));
     }
-
-    @Override
-    public boolean isValidEta(double eta) {
-        return Double.isFinite(eta);
-    }
-
-    @Override
-    public String etaDomain() {
-        return "any finite number";
-    }
 }

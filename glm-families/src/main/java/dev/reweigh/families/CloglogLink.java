@@ -26,14 +26,4 @@ final class CloglogLink extends AbstractLink {
         // exp(eta) exp(-exp(eta)) = exp(eta - exp(eta)): one exponential, no overflow for large eta.
         return Math.exp(eta - Math.exp(eta));
     }
-
-    @Override
-    public boolean isValidEta(double eta) {
-        return Double.isFinite(eta);
-    }
-
-    @Override
-    public String etaDomain() {
-        return "any finite number";
-    }
 }

@@ -22,14 +22,4 @@ final class IdentityLink extends AbstractLink {
     public double derivative(double eta) {
         return 1.0;
     }
-
-    @Override
-    public boolean isValidEta(double eta) {
-        return Double.isFinite(eta);
-    }
-
-    @Override
-    public String etaDomain() {
-        return "any finite number";
-    }
 }

@@ -36,14 +36,4 @@ final class LogitLink extends AbstractLink {
         double onePlus = 1.0 + e;
         return e / (onePlus * onePlus);
     }
-
-    @Override
-    public boolean isValidEta(double eta) {
-        return Double.isFinite(eta);
-    }
-
-    @Override
-    public String etaDomain() {
-        return "any finite number";
-    }
 }

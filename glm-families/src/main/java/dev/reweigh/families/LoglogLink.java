@@ -24,14 +24,4 @@ final class LoglogLink extends AbstractLink {
     public double derivative(double eta) {
         return Math.exp(-eta - Math.exp(-eta));
     }
-
-    @Override
-    public boolean isValidEta(double eta) {
-        return Double.isFinite(eta);
-    }
-
-    @Override
-    public String etaDomain() {
-        return "any finite number";
-    }
 }

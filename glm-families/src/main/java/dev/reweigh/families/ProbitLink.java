@@ -25,14 +25,4 @@ final class ProbitLink extends AbstractLink {
     public double derivative(double eta) {
         return ProbabilityMath.normalDensity(eta);
     }
-
-    @Override
-    public boolean isValidEta(double eta) {
-        return Double.isFinite(eta);
-    }
-
-    @Override
-    public String etaDomain() {
-        return "any finite number";
-    }
 }
