@@ -66,6 +66,7 @@ public final class MotorDemo {
             "(some places forbid or restrict factors such as age, gender or location).");
 
     private static final double LEVEL = 0.95;
+    private static final System.Logger LOG = System.getLogger(MotorDemo.class.getName());
 
     private final DemoSettings settings;
     private final PrintWriter out;
@@ -443,11 +444,11 @@ public final class MotorDemo {
     private long lastSection = System.nanoTime();
 
     private void section(String title) {
-        if (Boolean.getBoolean("reweigh.demo.timings")) {
-            long now = System.nanoTime();
-            System.err.printf(Locale.ROOT, "[%.2f s before: %s]%n", (now - lastSection) / 1e9, title);
-            lastSection = now;
-        }
+        long now = System.nanoTime();
+        double seconds = (now - lastSection) / 1e9;
+        lastSection = now;
+        LOG.log(System.Logger.Level.DEBUG, () -> String.format(Locale.ROOT, "%.2f s before section '%s'", seconds,
+                title));
         out.println();
         out.println("== " + title);
         out.flush();
