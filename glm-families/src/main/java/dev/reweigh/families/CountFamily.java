@@ -28,12 +28,12 @@ abstract class CountFamily extends AbstractFamily {
 
     @Override
     public final boolean isValidMean(double mu) {
-        return mu > 0.0 && mu < Double.POSITIVE_INFINITY;
+        return NumberRange.POSITIVE.contains(mu);
     }
 
     @Override
     public final String meanDomain() {
-        return "a positive finite number";
+        return NumberRange.POSITIVE.description();
     }
 
     /** Shifted off zero so that the log link can start from a zero count. */

@@ -26,22 +26,22 @@ final class GaussianFamily extends AbstractFamily {
 
     @Override
     public boolean isValidResponse(double y, double priorWeight) {
-        return Double.isFinite(y);
+        return NumberRange.FINITE.contains(y);
     }
 
     @Override
     public String responseDomain() {
-        return "a finite number";
+        return NumberRange.FINITE.description();
     }
 
     @Override
     public boolean isValidMean(double mu) {
-        return Double.isFinite(mu);
+        return NumberRange.FINITE.contains(mu);
     }
 
     @Override
     public String meanDomain() {
-        return "a finite number";
+        return NumberRange.FINITE.description();
     }
 
     @Override

@@ -21,22 +21,22 @@ abstract class PositiveContinuousFamily extends AbstractFamily {
 
     @Override
     public final boolean isValidResponse(double y, double priorWeight) {
-        return y > 0.0 && y < Double.POSITIVE_INFINITY;
+        return NumberRange.POSITIVE.contains(y);
     }
 
     @Override
     public final String responseDomain() {
-        return "a positive finite number";
+        return NumberRange.POSITIVE.description();
     }
 
     @Override
     public final boolean isValidMean(double mu) {
-        return mu > 0.0 && mu < Double.POSITIVE_INFINITY;
+        return NumberRange.POSITIVE.contains(mu);
     }
 
     @Override
     public final String meanDomain() {
-        return "a positive finite number";
+        return NumberRange.POSITIVE.description();
     }
 
     @Override

@@ -75,13 +75,7 @@ final class QuasiFamily extends AbstractFamily {
         if (isProportion()) {
             return y >= 0.0 && y <= 1.0;
         }
-        if (power == 0.0) {
-            return Double.isFinite(y);
-        }
-        if (power >= 2.0) {
-            return y > 0.0 && y < Double.POSITIVE_INFINITY;
-        }
-        return y >= 0.0 && y < Double.POSITIVE_INFINITY;
+        return powerResponseRange().contains(y);
     }
 
     @Override
@@ -89,10 +83,15 @@ final class QuasiFamily extends AbstractFamily {
         if (isProportion()) {
             return "a proportion in [0, 1]";
         }
+        return powerResponseRange().description();
+    }
+
+    /** The response range of a power variance: any number for a constant, zero allowed below p = 2. */
+    private NumberRange powerResponseRange() {
         if (power == 0.0) {
-            return "a finite number";
+            return NumberRange.FINITE;
         }
-        return power >= 2.0 ? "a positive finite number" : "a non-negative finite number";
+        return power >= 2.0 ? NumberRange.POSITIVE : NumberRange.NON_NEGATIVE;
     }
 
     @Override
@@ -100,10 +99,7 @@ final class QuasiFamily extends AbstractFamily {
         if (isProportion()) {
             return mu > 0.0 && mu < 1.0;
         }
-        if (power == 0.0) {
-            return Double.isFinite(mu);
-        }
-        return mu > 0.0 && mu < Double.POSITIVE_INFINITY;
+        return powerMeanRange().contains(mu);
     }
 
     @Override
@@ -111,7 +107,11 @@ final class QuasiFamily extends AbstractFamily {
         if (isProportion()) {
             return "a number strictly between 0 and 1";
         }
-        return power == 0.0 ? "a finite number" : "a positive finite number";
+        return powerMeanRange().description();
+    }
+
+    private NumberRange powerMeanRange() {
+        return power == 0.0 ? NumberRange.FINITE : NumberRange.POSITIVE;
     }
 
     @Override

@@ -35,22 +35,22 @@ final class TweedieFamily extends AbstractFamily {
 
     @Override
     public boolean isValidResponse(double y, double priorWeight) {
-        return y >= 0.0 && y < Double.POSITIVE_INFINITY;
+        return NumberRange.NON_NEGATIVE.contains(y);
     }
 
     @Override
     public String responseDomain() {
-        return "a non-negative finite number";
+        return NumberRange.NON_NEGATIVE.description();
     }
 
     @Override
     public boolean isValidMean(double mu) {
-        return mu > 0.0 && mu < Double.POSITIVE_INFINITY;
+        return NumberRange.POSITIVE.contains(mu);
     }
 
     @Override
     public String meanDomain() {
-        return "a positive finite number";
+        return NumberRange.POSITIVE.description();
     }
 
     @Override
