@@ -9,8 +9,6 @@ import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
-import java.util.LinkedHashSet;
-import java.util.Set;
 
 /**
  * Saving and loading model artifacts for the command line, with failures re-stated as
@@ -76,26 +74,5 @@ public final class ModelFiles {
         } catch (ArtifactException e) {
             throw new DataFileException(name, "is not a valid Reweigh model: " + e.getMessage(), e);
         }
-    }
-
-    /**
-     * Returns the factor columns of a model, from its column names ({@code column=level}, parts
-     * of interactions joined by " &amp; ").
-     *
-     * @param artifact the artifact
-     * @return the factor column names, in model order
-     * @since 0.1
-     */
-    public static Set<String> factorColumns(ModelArtifact artifact) {
-        Set<String> factors = new LinkedHashSet<>();
-        for (String column : artifact.columnNames()) {
-            for (String part : column.split(" & ")) {
-                int eq = part.indexOf('=');
-                if (eq > 0) {
-                    factors.add(part.substring(0, eq));
-                }
-            }
-        }
-        return factors;
     }
 }

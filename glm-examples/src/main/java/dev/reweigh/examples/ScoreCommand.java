@@ -24,7 +24,6 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Set;
 import java.util.concurrent.Callable;
 
 /**
@@ -79,10 +78,9 @@ public final class ScoreCommand implements Callable<Integer> {
     public Integer call() {
         ModelArtifact artifact = ModelFiles.load(model);
         Scorer scorer = artifact.scorerBuilder().intervalLevel(LEVEL).build();
-        Set<String> factors = ModelFiles.factorColumns(artifact);
         CsvTableReader.Builder reader = CsvTableReader.builder();
         for (String column : scorer.inputColumns()) {
-            if (factors.contains(column)) {
+            if (scorer.isFactor(column)) {
                 reader.factor(column);
             } else {
                 reader.numeric(column);
