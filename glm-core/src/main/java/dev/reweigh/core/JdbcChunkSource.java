@@ -152,7 +152,6 @@ public final class JdbcChunkSource implements ChunkSource {
         double[][] numbers = new double[cols][];
         String[][] texts = new String[cols][];
         int filled = 0;
-        boolean any = false;
         while (rs.next()) {
             if (filled == 0) {
                 for (int k = 0; k < cols; k++) {
@@ -175,10 +174,9 @@ public final class JdbcChunkSource implements ChunkSource {
             if (filled == chunkRows) {
                 action.accept(chunk(names, categorical, numbers, texts, filled));
                 filled = 0;
-                any = true;
             }
         }
-        if (filled > 0 || !any) {
+        if (filled > 0) {
             action.accept(chunk(names, categorical, numbers, texts, filled));
         }
     }
@@ -187,11 +185,9 @@ public final class JdbcChunkSource implements ChunkSource {
         Table.Builder b = Table.builder();
         for (int k = 0; k < names.length; k++) {
             if (categorical[k]) {
-                String[] v = texts[k] == null ? new String[0] : Arrays.copyOf(texts[k], rows);
-                b.categorical(names[k], levels.get(names[k]), v);
+                b.categorical(names[k], levels.get(names[k]), Arrays.copyOf(texts[k], rows));
             } else {
-                double[] v = numbers[k] == null ? new double[0] : Arrays.copyOf(numbers[k], rows);
-                b.numeric(names[k], v);
+                b.numeric(names[k], Arrays.copyOf(numbers[k], rows));
             }
         }
         return b.build();

@@ -8,11 +8,13 @@ import java.util.Objects;
  * the weighted cross products gathered chunk by chunk into sums whose size depends on the
  * number of model columns only. Memory is therefore independent of the number of rows.
  *
- * <p>The iteration is the in-memory one ({@link Glm#fit(ModelSpec, Table, FitOptions)} on the
- * Cholesky route): the same working response and weights, starting means, step-halving, rank
- * decision and convergence rule, so on the same rows both give the same coefficients up to
- * rounding. {@link FitOptions#threads()} applies to the accumulation within each chunk, and
- * results do not depend on it.
+ * <p>The iteration is Fisher scoring as in the in-memory fit ({@link Glm#fit(ModelSpec, Table,
+ * FitOptions)} on the Cholesky route): the same working response and weights, starting means,
+ * step-halving, rank decision and convergence rule, so for canonical links both give the same
+ * coefficients up to rounding; for other links the in-memory fit may take Newton steps instead,
+ * and both converge to the same estimates. A first step that must be shortened is refused here
+ * (give start coefficients). {@link FitOptions#threads()} applies to the accumulation within
+ * each chunk, and results do not depend on it.
  *
  * <p>Differences from the in-memory fit: the solver is always Cholesky on the cross products
  * ({@link Solver#PIVOTED_QR} is refused), starting means ({@link FitOptions#startMeans()}) are
