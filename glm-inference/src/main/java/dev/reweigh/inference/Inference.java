@@ -696,7 +696,7 @@ public final class Inference {
      */
     public GoodnessOfFit goodnessOfFit() {
         double deviance = fit.deviance();
-        double pearson = data.pearsonChiSquare();
+        double pearson = DispersionMath.sumOf(DispersionMath.pearsonContributions(data));
         int df = fit.residualDf();
         FamilyKind kind = FamilyKind.of(fit.family());
         boolean meaningful = true;

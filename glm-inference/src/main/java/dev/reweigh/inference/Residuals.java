@@ -140,14 +140,8 @@ public final class Residuals {
      */
     public double[] pearson() {
         Family family = data.family();
-        double[] r = new double[data.rows()];
-        for (int i = 0; i < r.length; i++) {
-            double w = data.priorWeight(i);
-            if (w > 0) {
-                r[i] = Math.sqrt(w) * (data.y(i) - data.mu(i)) / Math.sqrt(family.variance(data.mu(i)));
-            }
-        }
-        return r;
+        return data.perInformativeRow(i -> Math.sqrt(data.priorWeight(i)) * (data.y(i) - data.mu(i))
+                / Math.sqrt(family.variance(data.mu(i))));
     }
 
     /**
@@ -158,15 +152,10 @@ public final class Residuals {
      */
     public double[] deviance() {
         Family family = data.family();
-        double[] r = new double[data.rows()];
-        for (int i = 0; i < r.length; i++) {
-            double w = data.priorWeight(i);
-            if (w > 0) {
-                double d = Math.max(0, w * family.unitDeviance(data.y(i), data.mu(i)));
-                r[i] = Math.copySign(Math.sqrt(d), data.y(i) - data.mu(i));
-            }
-        }
-        return r;
+        return data.perInformativeRow(i -> {
+            double d = Math.max(0, data.priorWeight(i) * family.unitDeviance(data.y(i), data.mu(i)));
+            return Math.copySign(Math.sqrt(d), data.y(i) - data.mu(i));
+        });
     }
 
     /**
@@ -177,14 +166,8 @@ public final class Residuals {
      */
     public double[] anscombe() {
         Family family = data.family();
-        double[] r = new double[data.rows()];
-        for (int i = 0; i < r.length; i++) {
-            double w = data.priorWeight(i);
-            if (w > 0) {
-                r[i] = Math.sqrt(w) * family.anscombeResidual(data.y(i), data.mu(i));
-            }
-        }
-        return r;
+        return data.perInformativeRow(
+                i -> Math.sqrt(data.priorWeight(i)) * family.anscombeResidual(data.y(i), data.mu(i)));
     }
 
     /**

@@ -27,15 +27,10 @@ public final class DispersionMath {
      */
     public static double[] pearsonContributions(ModelData d) {
         Family family = d.family();
-        double[] c = new double[d.rows()];
-        for (int i = 0; i < c.length; i++) {
-            double w = d.priorWeight(i);
-            if (w > 0) {
-                double r = d.y(i) - d.mu(i);
-                c[i] = w * r * r / family.variance(d.mu(i));
-            }
-        }
-        return c;
+        return d.perInformativeRow(i -> {
+            double r = d.y(i) - d.mu(i);
+            return d.priorWeight(i) * r * r / family.variance(d.mu(i));
+        });
     }
 
     /**
@@ -46,14 +41,7 @@ public final class DispersionMath {
      */
     public static double[] devianceContributions(ModelData d) {
         Family family = d.family();
-        double[] c = new double[d.rows()];
-        for (int i = 0; i < c.length; i++) {
-            double w = d.priorWeight(i);
-            if (w > 0) {
-                c[i] = w * family.unitDeviance(d.y(i), d.mu(i));
-            }
-        }
-        return c;
+        return d.perInformativeRow(i -> d.priorWeight(i) * family.unitDeviance(d.y(i), d.mu(i)));
     }
 
     /**

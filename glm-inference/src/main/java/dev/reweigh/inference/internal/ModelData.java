@@ -3,10 +3,11 @@ package dev.reweigh.inference.internal;
 import dev.reweigh.core.FittedModel;
 import dev.reweigh.families.Family;
 import dev.reweigh.families.Link;
+import java.util.function.IntToDoubleFunction;
 
 /**
- * The per-row arrays of a fitted model, read once, with the sums every inference quantity needs.
- * Rows with zero prior weight carry no information and are skipped by every sum.
+ * The per-row arrays of a fitted model, read once, with the per-row quantities and sums inference
+ * needs. Rows with zero prior weight carry no information and are skipped by every sum.
  */
 public final class ModelData {
     private final FittedModel fit;
@@ -124,36 +125,20 @@ public final class ModelData {
     }
 
     /**
-     * Returns the Pearson chi-square statistic, the sum of w (y - mu)^2 / V(mu).
+     * Evaluates a per-row quantity in the informative rows; rows with zero prior weight get 0
+     * without being evaluated (their means may lie where the family's functions are undefined).
      *
-     * @return the Pearson statistic
+     * @param value the quantity of row i
+     * @return one value per row
      */
-    public double pearsonChiSquare() {
-        Family family = fit.family();
-        double sum = 0;
-        for (int i = 0; i < y.length; i++) {
+    public double[] perInformativeRow(IntToDoubleFunction value) {
+        double[] values = new double[y.length];
+        for (int i = 0; i < values.length; i++) {
             if (priorWeights[i] > 0) {
-                double r = y[i] - mu[i];
-                sum += priorWeights[i] * r * r / family.variance(mu[i]);
+                values[i] = value.applyAsDouble(i);
             }
         }
-        return sum;
-    }
-
-    /**
-     * Returns the sum of w_i times the unit deviance, recomputed from the family.
-     *
-     * @return the deviance
-     */
-    public double deviance() {
-        Family family = fit.family();
-        double sum = 0;
-        for (int i = 0; i < y.length; i++) {
-            if (priorWeights[i] > 0) {
-                sum += priorWeights[i] * family.unitDeviance(y[i], mu[i]);
-            }
-        }
-        return sum;
+        return values;
     }
 
     /**
