@@ -88,13 +88,12 @@ final class DesignRecipe {
                 names.addAll(part.names);
             }
         }
-        List<String> seen = new ArrayList<>();
+        java.util.Set<String> seen = new java.util.HashSet<>();
         for (String s : names) {
-            if (seen.contains(s)) {
+            if (!seen.add(s)) {
                 throw new ModelSpecException("the model has two columns named '" + s
                         + "': a term appears twice in the specification");
             }
-            seen.add(s);
         }
         return new DesignRecipe(probe.intercept, enc, List.copyOf(names));
     }

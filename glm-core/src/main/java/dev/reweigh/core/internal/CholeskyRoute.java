@@ -6,6 +6,9 @@ import java.util.Arrays;
  * The fast route: X'WX and X'Wz from the {@link CrossProductAccumulator}, scaled to unit diagonal,
  * then a Cholesky factorization in model order with a relative pivot tolerance (a pivot below
  * rankTolerance^2 marks the column aliased when the rank is decided; later it means breakdown).
+ * Above {@link #LARGE_P} columns the factorization, solve and inverse are delegated to the
+ * vectorised {@link dev.reweigh.core.internal.wls.NormalEquations} (same rule, no condition
+ * estimate).
  */
 final class CholeskyRoute implements WlsRoute {
     /** Cross products resolve remainders down to about sqrt(1e-14) = 1e-7 of a column's length. */
@@ -21,6 +24,10 @@ final class CholeskyRoute implements WlsRoute {
     private final double[] scale;
     private boolean[] excluded;
     private double condition = 1.0;
+    /** Large p: the vectorised panel factorization of the wls package (no condition estimate). */
+    private final dev.reweigh.core.internal.wls.NormalEquations large;
+    /** Above this many columns the O(p^3) work goes to {@link #large}. */
+    static final int LARGE_P = 64;
 
     CholeskyRoute(DesignMatrix x, CrossProductAccumulator accumulator, double rankTolerance) {
         this.x = x;
@@ -31,6 +38,7 @@ final class CholeskyRoute implements WlsRoute {
         this.xtwz = new double[p];
         this.chol = new double[p * p];
         this.scale = new double[p];
+        this.large = p > LARGE_P ? new dev.reweigh.core.internal.wls.NormalEquations(p, this.rankTolerance) : null;
     }
 
     @Override
@@ -51,6 +59,10 @@ final class CholeskyRoute implements WlsRoute {
 
     /** Scales and factors the gram over the non-excluded columns; marks aliased ones if deciding. */
     private boolean factor(boolean[] ex, boolean deciding) {
+        if (large != null) {
+            condition = 1.0;
+            return large.factor(gram, ex, deciding);
+        }
         for (int j = 0; j < p; j++) {
             double g = gram[j * p + j];
             scale[j] = g > 0 ? 1.0 / Math.sqrt(g) : 0.0;
@@ -113,6 +125,10 @@ final class CholeskyRoute implements WlsRoute {
         if (!factor(excluded, false)) {
             return false;
         }
+        if (large != null) {
+            large.solve(xtwz, excluded, beta);
+            return true;
+        }
         double[] u = new double[p];
         for (int j = 0; j < p; j++) {
             if (excluded[j]) {
@@ -153,6 +169,9 @@ final class CholeskyRoute implements WlsRoute {
         }
         if (!factor(excluded, false)) {
             return cov;
+        }
+        if (large != null) {
+            return large.inverse(excluded);
         }
         // inverse of L (lower), then S^-1 = L^-T L^-1
         double[] linv = new double[p * p];

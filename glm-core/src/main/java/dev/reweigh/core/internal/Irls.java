@@ -295,17 +295,18 @@ public final class Irls {
      */
     private double[] anchor() {
         int one = -1;
-        double[] row = new double[p];
-        boolean[] allOnes = new boolean[p];
-        java.util.Arrays.fill(allOnes, true);
-        for (int i = 0; i < n; i++) {
-            pr.x.row(i, row);
-            for (int j = 0; j < p; j++) {
-                allOnes[j] &= row[j] == 1.0;
+        int d = pr.x.denseWidth();
+        double[] dense = pr.x.dense();
+        for (int k = 0; k < d && one < 0; k++) {
+            int j = pr.x.denseColumns()[k];
+            if (!pr.candidates[j]) {
+                continue;
             }
-        }
-        for (int j = 0; j < p && one < 0; j++) {
-            if (allOnes[j] && pr.candidates[j]) {
+            boolean allOnes = true;
+            for (int i = 0; i < n && allOnes; i++) {
+                allOnes = dense[i * d + k] == 1.0;
+            }
+            if (allOnes) {
                 one = j;
             }
         }
@@ -541,18 +542,30 @@ public final class Irls {
         }
     }
 
+    /** Root mean square of each column, from the compact design (no per-row expansion). */
     private static double[] columnRms(DesignMatrix x) {
         int p = x.columns();
+        int n = x.rows();
+        int d = x.denseWidth();
         double[] s = new double[p];
-        double[] row = new double[p];
-        for (int i = 0; i < x.rows(); i++) {
-            x.row(i, row);
-            for (int j = 0; j < p; j++) {
-                s[j] += row[j] * row[j];
+        double[] dense = x.dense();
+        for (int i = 0; i < n; i++) {
+            for (int k = 0; k < d; k++) {
+                double v = dense[i * d + k];
+                s[x.denseColumns()[k]] += v * v;
+            }
+        }
+        for (DesignMatrix.FactorBlock f : x.factors()) {
+            for (int i = 0; i < n; i++) {
+                int c = f.codes()[i];
+                if (c >= 0) {
+                    double v = f.multipliers() == null ? 1.0 : f.multipliers()[i];
+                    s[f.firstColumn() + c] += v * v;
+                }
             }
         }
         for (int j = 0; j < p; j++) {
-            s[j] = x.rows() == 0 ? 0 : Math.sqrt(s[j] / x.rows());
+            s[j] = n == 0 ? 0 : Math.sqrt(s[j] / n);
         }
         return s;
     }
