@@ -19,9 +19,8 @@ class DiagnosticsTest {
         assertEquals(ships.rank(), TestData.sum(Inference.of(ships).diagnostics().leverage()), 1e-9);
         FittedModel beetles = ReferenceDataTest.beetles(Links.cloglog());
         assertEquals(beetles.rank(), TestData.sum(Inference.of(beetles).diagnostics().leverage()), 1e-9);
-        FittedModel weighted = Glm.fit(ModelSpec.builder("severity").family(Families.gamma()).link(Links.log())
-                .factor("vehicle", "hatchback").numeric("age").weights("claims").build(),
-                TestData.weightedGammaSeverities(120, 2.0, 81));
+        FittedModel weighted = Glm.fit(TestData.vehicleAndAge("severity", Families.gamma()).link(Links.log())
+                .weights("claims").build(), TestData.weightedGammaSeverities(120, 2.0, 81));
         double[] h = Inference.of(weighted).diagnostics().leverage();
         assertEquals(weighted.rank(), TestData.sum(h), 1e-9);
         for (double v : h) {
@@ -34,8 +33,7 @@ class DiagnosticsTest {
         // Cook's distance by definition: D_i = (b - b_(i))' X'X (b - b_(i)) / (p s^2), with b_(i) the fit without
         // row i, computed here by brute-force refits (common practice, no source)
         Table t = TestData.gaussianSeverities(25, 150, 91);
-        ModelSpec spec = ModelSpec.builder("severity").family(Families.gaussian())
-                .factor("vehicle", "hatchback").numeric("age").build();
+        ModelSpec spec = TestData.vehicleAndAge("severity", Families.gaussian()).build();
         FittedModel fit = Glm.fit(spec, t);
         Inference inference = Inference.of(fit);
         double[] cooks = inference.diagnostics().cooksDistance();

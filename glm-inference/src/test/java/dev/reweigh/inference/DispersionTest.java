@@ -19,8 +19,7 @@ import org.junit.jupiter.api.Test;
 class DispersionTest {
 
     static FittedModel gammaFit(Table t) {
-        return Glm.fit(ModelSpec.builder("severity").family(Families.gamma()).link(Links.log())
-                .factor("vehicle", "hatchback").numeric("age").build(), t);
+        return Glm.fit(TestData.vehicleAndAge("severity", Families.gamma()).link(Links.log()).build(), t);
     }
 
     @Test
@@ -39,8 +38,8 @@ class DispersionTest {
         // McCullagh & Nelder 1989, chapter 8 (from memory): each row's shape is w_i nu, and
         // sum_i w_i [log(w_i nu) - digamma(w_i nu)] = D / 2.
         Table t = TestData.weightedGammaSeverities(300, 2.0, 22);
-        FittedModel fit = Glm.fit(ModelSpec.builder("severity").family(Families.gamma()).link(Links.log())
-                .factor("vehicle", "hatchback").numeric("age").weights("claims").build(), t);
+        FittedModel fit = Glm.fit(TestData.vehicleAndAge("severity", Families.gamma()).link(Links.log())
+                .weights("claims").build(), t);
         double nu = 1 / DispersionEstimate.of(fit, DispersionMethod.MAXIMUM_LIKELIHOOD).value();
         double[] w = fit.priorWeights();
         double lhs = 0;
@@ -112,8 +111,7 @@ class DispersionTest {
     @Test
     void closedFormMaximumLikelihoodForGaussianAndInverseGaussian() {
         Table t = TestData.gaussianSeverities(200, 150, 41);
-        FittedModel gauss = Glm.fit(ModelSpec.builder("severity").family(Families.gaussian())
-                .factor("vehicle", "hatchback").numeric("age").build(), t);
+        FittedModel gauss = Glm.fit(TestData.vehicleAndAge("severity", Families.gaussian()).build(), t);
         double rss = 0;
         double[] y = gauss.response();
         double[] mu = gauss.fittedValues();
@@ -129,8 +127,8 @@ class DispersionTest {
         ChiSquaredDistribution chi = new ChiSquaredDistribution(gauss.residualDf());
         assertEquals(rss / chi.inverseCumulativeProbability(0.975), ci.lower(), 1e-6 * ci.lower());
 
-        FittedModel ig = Glm.fit(ModelSpec.builder("severity").family(Families.inverseGaussian()).link(Links.log())
-                .factor("vehicle", "hatchback").numeric("age").build(), TestData.gammaSeverities(200, 3.0, 42));
+        FittedModel ig = Glm.fit(TestData.vehicleAndAge("severity", Families.inverseGaussian())
+                .link(Links.log()).build(), TestData.gammaSeverities(200, 3.0, 42));
         DispersionEstimate igMl = DispersionEstimate.of(ig, DispersionMethod.MAXIMUM_LIKELIHOOD);
         assertEquals(ig.deviance() / ig.rowCount(), igMl.value(), 1e-12 * ig.deviance());
         // the closed form is the likelihood's maximiser: nearby values have a lower log-likelihood
@@ -140,8 +138,7 @@ class DispersionTest {
 
     @Test
     void numericMaximumLikelihoodDispersionOfATweedieModelAndItsLikelihoodInterval() {
-        FittedModel fit = Glm.fit(ModelSpec.builder("premium").family(Families.tweedie(1.5)).link(Links.log())
-                .factor("vehicle", "hatchback").numeric("age").build(),
+        FittedModel fit = Glm.fit(TestData.vehicleAndAge("premium", Families.tweedie(1.5)).link(Links.log()).build(),
                 TestData.compoundPoissonPremiums(300, 1.5, 2.0, 43));
         DispersionEstimate ml = DispersionEstimate.of(fit, DispersionMethod.MAXIMUM_LIKELIHOOD);
         double best = logLikelihood(fit, ml.value());

@@ -5,7 +5,6 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.reweigh.core.FittedModel;
 import dev.reweigh.core.Glm;
-import dev.reweigh.core.ModelSpec;
 import dev.reweigh.families.Families;
 import dev.reweigh.families.Links;
 import org.junit.jupiter.api.Test;
@@ -18,9 +17,8 @@ class FamilyParameterTest {
         // claim counts from a Gamma-Poisson mixture with theta = 1.5; 4 standard errors of tolerance
         // (a correct estimator fails with probability about 6e-5; fixed seed)
         double theta = 1.5;
-        FittedModel poisson = Glm.fit(ModelSpec.builder("claims").family(Families.poisson())
-                .factor("vehicle", "hatchback").numeric("age").logOffset("exposure").build(),
-                TestData.negativeBinomialCounts(2000, theta, 171));
+        FittedModel poisson = Glm.fit(TestData.vehicleAndAge("claims", Families.poisson())
+                .logOffset("exposure").build(), TestData.negativeBinomialCounts(2000, theta, 171));
         NegativeBinomialTheta nb = NegativeBinomialTheta.estimate(poisson);
         assertTrue(nb.converged(), nb.toString());
         assertTrue(nb.warnings().isEmpty(), nb.toString());
@@ -41,9 +39,8 @@ class FamilyParameterTest {
 
     @Test
     void poissonCountsDriveThetaToTheBoundaryWithAWarning() {
-        FittedModel poisson = Glm.fit(ModelSpec.builder("claims").family(Families.poisson())
-                .factor("vehicle", "hatchback").numeric("age").logOffset("exposure").build(),
-                TestData.poissonCounts(300, 172));
+        FittedModel poisson = Glm.fit(TestData.vehicleAndAge("claims", Families.poisson())
+                .logOffset("exposure").build(), TestData.poissonCounts(300, 172));
         NegativeBinomialTheta nb = NegativeBinomialTheta.estimate(poisson);
         if (nb.theta() > 1e6) {
             assertTrue(nb.warnings().stream().anyMatch(w -> w.contains("no overdispersion")), nb.toString());
@@ -57,8 +54,7 @@ class FamilyParameterTest {
     void tweediePowerIsChosenByProfileLikelihood() {
         // pure premiums simulated as compound Poisson-Gamma sums with power 1.5 and dispersion 2 (fixed seed);
         // 500 rows, about a quarter of them zero
-        FittedModel start = Glm.fit(ModelSpec.builder("premium").family(Families.tweedie(1.5)).link(Links.log())
-                .factor("vehicle", "hatchback").numeric("age").build(),
+        FittedModel start = Glm.fit(TestData.vehicleAndAge("premium", Families.tweedie(1.5)).link(Links.log()).build(),
                 TestData.compoundPoissonPremiums(500, 1.5, 2.0, 181));
         TweediePowerProfile profile = TweediePowerProfile.of(start, 1.1, 1.9, 5);
         assertEquals(5, profile.gridPowers().length);

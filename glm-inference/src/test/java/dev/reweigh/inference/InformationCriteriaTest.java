@@ -18,8 +18,7 @@ import org.junit.jupiter.api.Test;
 class InformationCriteriaTest {
 
     private static ModelSpec severity(Family family) {
-        return ModelSpec.builder("severity").family(family).link(Links.log())
-                .factor("vehicle", "hatchback").numeric("age").build();
+        return TestData.vehicleAndAge("severity", family).link(Links.log()).build();
     }
 
     @Test
@@ -83,8 +82,8 @@ class InformationCriteriaTest {
     @Test
     void estimatedThetaCountsAsAParameterInAComparison() {
         Table counts = TestData.negativeBinomialCounts(800, 2.0, 103);
-        FittedModel poisson = Glm.fit(ModelSpec.builder("claims").family(Families.poisson())
-                .factor("vehicle", "hatchback").numeric("age").logOffset("exposure").build(), counts);
+        FittedModel poisson = Glm.fit(TestData.vehicleAndAge("claims", Families.poisson())
+                .logOffset("exposure").build(), counts);
         NegativeBinomialTheta nb = NegativeBinomialTheta.estimate(poisson);
         ModelComparison c = ModelComparison.builder(Criterion.BIC).add("poisson", poisson)
                 .add("negative binomial", nb).build();

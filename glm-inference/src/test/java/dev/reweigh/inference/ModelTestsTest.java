@@ -6,7 +6,6 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.reweigh.core.FittedModel;
 import dev.reweigh.core.Glm;
-import dev.reweigh.core.ModelSpec;
 import dev.reweigh.core.Table;
 import dev.reweigh.families.Families;
 import dev.reweigh.families.Links;
@@ -90,8 +89,7 @@ class ModelTestsTest {
     }
 
     private static double relativeGap(int n) {
-        FittedModel fit = Glm.fit(ModelSpec.builder("claims").family(Families.poisson())
-                .factor("vehicle", "hatchback").numeric("age").logOffset("exposure").build(),
+        FittedModel fit = Glm.fit(TestData.vehicleAndAge("claims", Families.poisson()).logOffset("exposure").build(),
                 TestData.poissonCounts(n, 61));
         CoefficientTable table = Inference.of(fit).coefficientsWithProfileIntervals();
         double worst = 0;
@@ -110,8 +108,8 @@ class ModelTestsTest {
     void profileIntervalOfAGaussianLinearModelEqualsTheWaldTInterval() {
         // for a Gaussian identity model the deviance is exactly quadratic in each coefficient, so the F/t-based
         // profile criterion reproduces the t interval (common practice, no source)
-        FittedModel fit = Glm.fit(ModelSpec.builder("severity").family(Families.gaussian())
-                .factor("vehicle", "hatchback").numeric("age").build(), TestData.gaussianSeverities(50, 200, 71));
+        FittedModel fit = Glm.fit(TestData.vehicleAndAge("severity", Families.gaussian()).build(),
+                TestData.gaussianSeverities(50, 200, 71));
         Inference inference = Inference.of(fit);
         for (CoefficientRow r : inference.coefficientsWithProfileIntervals().rows()) {
             Interval p = r.profileInterval().orElseThrow();
@@ -125,8 +123,8 @@ class ModelTestsTest {
 
     @Test
     void relativityIntervalsOfALogLinkAreExponentiatedCoefficientIntervals() {
-        FittedModel fit = Glm.fit(ModelSpec.builder("severity").family(Families.gamma()).link(Links.log())
-                .factor("vehicle", "hatchback").numeric("age").build(), TestData.gammaSeverities(150, 2.0, 72));
+        FittedModel fit = Glm.fit(TestData.vehicleAndAge("severity", Families.gamma()).link(Links.log()).build(),
+                TestData.gammaSeverities(150, 2.0, 72));
         for (CoefficientRow r : Inference.of(fit).coefficients().rows()) {
             Interval rel = r.relativityInterval().orElseThrow();
             assertEquals(Math.exp(r.waldInterval().orElseThrow().lower()), rel.lower(), 1e-12);

@@ -6,7 +6,6 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.reweigh.core.FittedModel;
 import dev.reweigh.core.Glm;
-import dev.reweigh.core.ModelSpec;
 import dev.reweigh.core.Table;
 import dev.reweigh.families.Families;
 import dev.reweigh.families.Links;
@@ -19,8 +18,7 @@ class PredictionAndSummaryTest {
     @Test
     void newDataPredictionsMatchTheFittedRowsAndUseTheDeltaMethod() {
         Table data = TestData.gammaSeverities(120, 2.0, 151);
-        FittedModel fit = Glm.fit(ModelSpec.builder("severity").family(Families.gamma()).link(Links.log())
-                .factor("vehicle", "hatchback").numeric("age").build(), data);
+        FittedModel fit = Glm.fit(TestData.vehicleAndAge("severity", Families.gamma()).link(Links.log()).build(), data);
         Inference inference = Inference.of(fit);
         List<Prediction> fitted = inference.predictions().predictions();
         List<Prediction> fresh = inference.predict(data).predictions();
@@ -119,8 +117,8 @@ class PredictionAndSummaryTest {
             double prob = 1 / (1 + Math.exp(-p.logMean(i, -0.5)));
             lapsed[i] = p.rng.nextDouble() < prob ? 1 : 0;
         }
-        FittedModel binary = Glm.fit(ModelSpec.builder("lapsed").family(Families.binomial())
-                .factor("vehicle", "hatchback").numeric("age").build(), p.table().numeric("lapsed", lapsed).build());
+        FittedModel binary = Glm.fit(TestData.vehicleAndAge("lapsed", Families.binomial()).build(),
+                p.table().numeric("lapsed", lapsed).build());
         GoodnessOfFit gof = Inference.of(binary).goodnessOfFit();
         assertFalse(gof.isMeaningful());
         assertTrue(gof.devianceP().isEmpty());

@@ -4,7 +4,6 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 
 import dev.reweigh.core.FittedModel;
 import dev.reweigh.core.Glm;
-import dev.reweigh.core.ModelSpec;
 import dev.reweigh.families.Families;
 import dev.reweigh.families.Links;
 import dev.reweigh.inference.internal.Distributions;
@@ -52,8 +51,8 @@ class ReferenceDistributionTest {
 
     @Test
     void coefficientTableUsesNormalReferenceWhenDispersionIsFixedAndTWhenEstimated() {
-        FittedModel poisson = Glm.fit(ModelSpec.builder("claims").family(Families.poisson()).factor("vehicle", "hatchback")
-                .numeric("age").logOffset("exposure").build(), TestData.poissonCounts(400, 11));
+        FittedModel poisson = Glm.fit(TestData.vehicleAndAge("claims", Families.poisson())
+                .logOffset("exposure").build(), TestData.poissonCounts(400, 11));
         NormalDistribution normal = new NormalDistribution();
         CoefficientTable z = Inference.of(poisson).withLevel(0.9).coefficients();
         double zq = normal.inverseCumulativeProbability(0.95);
@@ -62,8 +61,8 @@ class ReferenceDistributionTest {
             assertEquals(r.estimate() - zq * r.standardError(), r.waldInterval().orElseThrow().lower(), 1e-9);
             assertEquals(Math.exp(r.estimate()), r.relativity().getAsDouble(), 1e-12);
         }
-        FittedModel gamma = Glm.fit(ModelSpec.builder("severity").family(Families.gamma()).link(Links.log())
-                .factor("vehicle", "hatchback").numeric("age").build(), TestData.gammaSeverities(60, 2.0, 12));
+        FittedModel gamma = Glm.fit(TestData.vehicleAndAge("severity", Families.gamma()).link(Links.log()).build(),
+                TestData.gammaSeverities(60, 2.0, 12));
         CoefficientTable t = Inference.of(gamma).coefficients();
         TDistribution dist = new TDistribution(gamma.residualDf());
         double tq = dist.inverseCumulativeProbability(0.975);
@@ -77,8 +76,8 @@ class ReferenceDistributionTest {
 
     @Test
     void singleColumnWaldTestIsTheSquareOfTheWaldStatistic() {
-        FittedModel gamma = Glm.fit(ModelSpec.builder("severity").family(Families.gamma()).link(Links.log())
-                .factor("vehicle", "hatchback").numeric("age").build(), TestData.gammaSeverities(80, 2.0, 13));
+        FittedModel gamma = Glm.fit(TestData.vehicleAndAge("severity", Families.gamma()).link(Links.log()).build(),
+                TestData.gammaSeverities(80, 2.0, 13));
         Inference estimated = Inference.of(gamma);
         CoefficientRow age = estimated.coefficients().row("age");
         WaldTest f = estimated.waldTest("age");

@@ -6,7 +6,6 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.reweigh.core.FittedModel;
 import dev.reweigh.core.Glm;
-import dev.reweigh.core.ModelSpec;
 import dev.reweigh.core.Table;
 import dev.reweigh.families.Families;
 import dev.reweigh.families.Family;
@@ -33,26 +32,23 @@ class ResidualPropertiesTest {
     static FittedModel fitFor(String family, int n, long seed) {
         switch (family) {
             case "poisson":
-                return Glm.fit(ModelSpec.builder("claims").family(Families.poisson()).factor("vehicle", "hatchback")
-                        .numeric("age").logOffset("exposure").build(),
+                return Glm.fit(TestData.vehicleAndAge("claims", Families.poisson())
+                        .logOffset("exposure").build(),
                         // claims are rare: four times the rows keep every vehicle class away from all-zero counts
                         TestData.poissonCounts(4 * n, seed));
             case "negative-binomial":
-                return Glm.fit(ModelSpec.builder("claims").family(Families.negativeBinomial(2.0))
-                        .factor("vehicle", "hatchback").numeric("age").logOffset("exposure").build(),
-                        TestData.negativeBinomialCounts(n, 2.0, seed));
+                return Glm.fit(TestData.vehicleAndAge("claims", Families.negativeBinomial(2.0))
+                        .logOffset("exposure").build(), TestData.negativeBinomialCounts(n, 2.0, seed));
             case "binomial":
-                return Glm.fit(ModelSpec.builder("lapsed").trials("policies").family(Families.binomial())
-                        .factor("vehicle", "hatchback").numeric("age").build(), TestData.binomialLapses(n, seed));
+                return Glm.fit(TestData.vehicleAndAge("lapsed", Families.binomial()).trials("policies").build(),
+                        TestData.binomialLapses(n, seed));
             case "gaussian":
-                return Glm.fit(ModelSpec.builder("severity").family(Families.gaussian())
-                        .factor("vehicle", "hatchback").numeric("age").build(),
+                return Glm.fit(TestData.vehicleAndAge("severity", Families.gaussian()).build(),
                         TestData.gaussianSeverities(n, 200, seed));
             default: {
                 Family f = family.equals("gamma") ? Families.gamma() : Families.inverseGaussian();
                 Table t = TestData.weightedGammaSeverities(n, 3.0, seed);
-                return Glm.fit(ModelSpec.builder("severity").family(f).link(Links.log())
-                        .factor("vehicle", "hatchback").numeric("age").weights("claims").build(), t);
+                return Glm.fit(TestData.vehicleAndAge("severity", f).link(Links.log()).weights("claims").build(), t);
             }
         }
     }
@@ -138,8 +134,8 @@ class ResidualPropertiesTest {
         Table premiums = TestData.compoundPoissonPremiums(600, 1.5, 20.0, 151);
         long zeros = java.util.Arrays.stream(premiums.numeric("premium")).filter(v -> v == 0).count();
         assertTrue(zeros > 30, "zeros " + zeros);
-        FittedModel fit = Glm.fit(ModelSpec.builder("premium").family(Families.tweedie(1.5)).link(Links.log())
-                .factor("vehicle", "hatchback").numeric("age").build(), premiums);
+        FittedModel fit = Glm.fit(TestData.vehicleAndAge("premium", Families.tweedie(1.5)).link(Links.log()).build(),
+                premiums);
         double[] q = Inference.of(fit).withDispersion(DispersionMethod.MAXIMUM_LIKELIHOOD).residuals().withSeed(3)
                 .randomizedQuantile();
         double p = new KolmogorovSmirnovTest().kolmogorovSmirnovTest(new NormalDistribution(), q);
@@ -164,8 +160,7 @@ class ResidualPropertiesTest {
     void randomizedQuantileResidualsOfAWrongFamilyAreNotStandardNormal() {
         // the same KS test has power against a misspecified family: negative binomial counts with theta 0.5
         // fitted as Poisson show far too many extreme residuals
-        FittedModel wrong = Glm.fit(ModelSpec.builder("claims").family(Families.poisson())
-                .factor("vehicle", "hatchback").numeric("age").logOffset("exposure").build(),
+        FittedModel wrong = Glm.fit(TestData.vehicleAndAge("claims", Families.poisson()).logOffset("exposure").build(),
                 TestData.negativeBinomialCounts(600, 0.5, 141));
         double[] q = Inference.of(wrong).residuals().randomizedQuantile();
         double p = new KolmogorovSmirnovTest().kolmogorovSmirnovTest(new NormalDistribution(), q);

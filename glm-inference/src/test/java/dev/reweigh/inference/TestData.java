@@ -1,6 +1,8 @@
 package dev.reweigh.inference;
 
+import dev.reweigh.core.ModelSpec;
 import dev.reweigh.core.Table;
+import dev.reweigh.families.Family;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.UncheckedIOException;
@@ -117,6 +119,14 @@ final class TestData {
         Table.Builder table() {
             return Table.builder().categorical("vehicle", vehicle).numeric("age", age).numeric("exposure", exposure);
         }
+    }
+
+    /**
+     * The model the simulated portfolios are built for: a vehicle factor (base level hatchback) and
+     * age; callers add the link, offset or weights their case needs.
+     */
+    static ModelSpec.Builder vehicleAndAge(String response, Family family) {
+        return ModelSpec.builder(response).family(family).factor("vehicle", "hatchback").numeric("age");
     }
 
     /** Claim severities: Gamma with the given shape and a log-linear mean around exp(7). */
