@@ -221,7 +221,7 @@ public final class Scorer {
      * @since 0.1
      */
     public void scoreLink(Table rows, double[] out) {
-        run(new ScoringInputs.TableBinding(design, fallback, rows), rows.rowCount(), out, null, null, null, null, null);
+        run(new ScoringInputs.TableBinding(design, fallback, rows), rows.rowCount(), out, null, null, null);
     }
 
     /**
@@ -237,7 +237,7 @@ public final class Scorer {
      * @since 0.1
      */
     public void scoreMean(Table rows, double[] out) {
-        run(new ScoringInputs.TableBinding(design, fallback, rows), rows.rowCount(), null, out, null, null, null, null);
+        run(new ScoringInputs.TableBinding(design, fallback, rows), rows.rowCount(), null, out, null, null);
     }
 
     /**
@@ -255,7 +255,7 @@ public final class Scorer {
      * @since 0.1
      */
     public void scoreMean(Table rows, double[] out, boolean[] usedReference) {
-        run(new ScoringInputs.TableBinding(design, fallback, rows), rows.rowCount(), null, out, null, null, null,
+        run(new ScoringInputs.TableBinding(design, fallback, rows), rows.rowCount(), null, out, null,
                 Objects.requireNonNull(usedReference, "usedReference"));
     }
 
@@ -273,7 +273,7 @@ public final class Scorer {
      */
     public void scoreLink(Map<String, ?> columns, double[] out) {
         ScoringInputs.ArrayBinding b = new ScoringInputs.ArrayBinding(design, fallback, columns, out.length);
-        run(b, b.rows, out, null, null, null, null, null);
+        run(b, b.rows, out, null, null, null);
     }
 
     /**
@@ -290,7 +290,7 @@ public final class Scorer {
      */
     public void scoreMean(Map<String, ?> columns, double[] out) {
         ScoringInputs.ArrayBinding b = new ScoringInputs.ArrayBinding(design, fallback, columns, out.length);
-        run(b, b.rows, null, out, null, null, null, null);
+        run(b, b.rows, null, out, null, null);
     }
 
     /**
@@ -309,7 +309,7 @@ public final class Scorer {
      */
     public void scoreMean(Map<String, ?> columns, double[] out, boolean[] usedReference) {
         ScoringInputs.ArrayBinding b = new ScoringInputs.ArrayBinding(design, fallback, columns, out.length);
-        run(b, b.rows, null, out, null, null, null, Objects.requireNonNull(usedReference, "usedReference"));
+        run(b, b.rows, null, out, null, Objects.requireNonNull(usedReference, "usedReference"));
     }
 
     // ------------------------------------------------------------------ results as objects
@@ -399,20 +399,28 @@ public final class Scorer {
         double[] link = new double[n];
         double[] mean = new double[n];
         boolean[] flags = new boolean[n];
-        double[] se = null;
-        double[] lo = null;
-        double[] hi = null;
-        if (scaledCovariance != null) {
-            se = new double[n];
-            lo = new double[n];
-            hi = new double[n];
-        }
-        run(b, n, link, mean, se, lo, hi, flags);
-        return new Scores(link, mean, se, lo, hi, flags);
+        Intervals iv = scaledCovariance == null ? null : new Intervals(n);
+        run(b, n, link, mean, iv, flags);
+        return iv == null ? new Scores(link, mean, null, null, null, null, flags)
+                : new Scores(link, mean, iv.linkSe, iv.meanSe, iv.lower, iv.upper, flags);
     }
 
-    private void run(ScoringInputs.Binding in, int n, double[] link, double[] mean, double[] se, double[] lo,
-            double[] hi, boolean[] flags) {
+    /** Per-row interval outputs. */
+    private static final class Intervals {
+        final double[] linkSe;
+        final double[] meanSe;
+        final double[] lower;
+        final double[] upper;
+
+        Intervals(int n) {
+            linkSe = new double[n];
+            meanSe = new double[n];
+            lower = new double[n];
+            upper = new double[n];
+        }
+    }
+
+    private void run(ScoringInputs.Binding in, int n, double[] link, double[] mean, Intervals iv, boolean[] flags) {
         checkLength("out", link, n);
         checkLength("out", mean, n);
         checkLength("usedReference", flags, n);
@@ -429,12 +437,16 @@ public final class Scorer {
             if (mean != null) {
                 double mu = mean(eta, i);
                 mean[i] = mu;
-                if (se != null) {
-                    double q = design.quadraticForm(s, scaledCovariance);
-                    double seMu = Math.abs(model.link.derivative(eta)) * Math.sqrt(Math.max(q, 0.0));
-                    se[i] = seMu;
-                    lo[i] = mu - z * seMu;
-                    hi[i] = mu + z * seMu;
+                if (iv != null) {
+                    // the interval is built on the link scale and mapped through the inverse link, so
+                    // it stays in the family's range (a decreasing link swaps the ends)
+                    double seEta = Math.sqrt(Math.max(design.quadraticForm(s, scaledCovariance), 0.0));
+                    double a = model.link.inverse(eta - z * seEta);
+                    double b = model.link.inverse(eta + z * seEta);
+                    iv.linkSe[i] = seEta;
+                    iv.meanSe[i] = Math.abs(model.link.derivative(eta)) * seEta;
+                    iv.lower[i] = Math.min(a, b);
+                    iv.upper[i] = Math.max(a, b);
                 }
             }
         }
@@ -503,10 +515,11 @@ public final class Scorer {
         }
 
         /**
-         * Computes a delta-method interval on each mean at this level: mean plus or minus z
-         * times |dmu/deta| sqrt(dispersion x' C x), z the normal quantile. Experimental: outside
-         * the compatibility promise, because the interval may move to the link scale (mapped
-         * through the inverse link, so that it stays in the family's domain).
+         * Computes an interval on each mean at this level: on the link scale, eta plus or minus
+         * z sqrt(dispersion x' C x) (z the normal quantile, C the unscaled covariance), mapped
+         * through the inverse link so that it stays in the family's range; also the delta-method
+         * standard error of the mean, |dmu/deta| times that of eta. Experimental: outside the
+         * compatibility promise while the scoring intervals settle.
          *
          * @param level the coverage, strictly between 0 and 1, e.g. 0.95
          * @return this builder

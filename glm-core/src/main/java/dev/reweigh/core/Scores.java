@@ -6,7 +6,8 @@ import java.util.Objects;
 
 /**
  * The scores of a batch of rows from a {@link Scorer}: linear predictor and mean per row, the
- * delta-method interval on the mean when the scorer was built with an interval level, and which
+ * interval on the mean (built on the link scale, mapped through the inverse link) and standard
+ * errors when the scorer was built with an interval level, and which
  * rows had an unseen factor level scored at the reference level. Immutable; array getters return
  * copies.
  *
@@ -15,15 +16,17 @@ import java.util.Objects;
 public final class Scores {
     private final double[] link;
     private final double[] mean;
+    private final double[] linkStandardError;
     private final double[] standardError;
     private final double[] lower;
     private final double[] upper;
     private final boolean[] usedReference;
 
-    Scores(double[] link, double[] mean, double[] standardError, double[] lower, double[] upper,
-            boolean[] usedReference) {
+    Scores(double[] link, double[] mean, double[] linkStandardError, double[] standardError, double[] lower,
+            double[] upper, boolean[] usedReference) {
         this.link = link;
         this.mean = mean;
+        this.linkStandardError = linkStandardError;
         this.standardError = standardError;
         this.lower = lower;
         this.upper = upper;
@@ -87,11 +90,25 @@ public final class Scores {
     /**
      * Tells whether intervals were computed (the scorer was built with an interval level).
      *
-     * @return true when {@link #lower()}, {@link #upper()} and {@link #standardError()} are available
+     * @return true when {@link #lower()}, {@link #upper()}, {@link #linkStandardError()} and
+     *     {@link #standardError()} are available
      * @since 0.1
      */
     public boolean hasIntervals() {
         return lower != null;
+    }
+
+    /**
+     * Returns the standard errors of the linear predictors: sqrt(dispersion x' C x) with C the
+     * unscaled covariance and x the row of the model matrix.
+     *
+     * @return a copy, one value per row
+     * @throws IllegalStateException when the scorer computes no intervals
+     * @since 0.1
+     */
+    @Experimental
+    public double[] linkStandardError() {
+        return requireIntervals(linkStandardError).clone();
     }
 
     /**
@@ -108,7 +125,8 @@ public final class Scores {
     }
 
     /**
-     * Returns the lower ends of the intervals on the means: mean - z standard error.
+     * Returns the lower ends of the intervals on the means: the link-scale interval eta plus or
+     * minus z times the link standard error, mapped through the inverse link (the smaller end).
      *
      * @return a copy, one value per row
      * @throws IllegalStateException when the scorer computes no intervals
@@ -120,7 +138,8 @@ public final class Scores {
     }
 
     /**
-     * Returns the upper ends of the intervals on the means: mean + z standard error.
+     * Returns the upper ends of the intervals on the means: the larger end of the link-scale
+     * interval mapped through the inverse link.
      *
      * @return a copy, one value per row
      * @throws IllegalStateException when the scorer computes no intervals

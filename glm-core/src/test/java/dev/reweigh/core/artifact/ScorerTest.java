@@ -75,7 +75,7 @@ class ScorerTest {
     }
 
     @Test
-    void deltaMethodIntervalMatchesAnIndependentComputation() {
+    void intervalIsBuiltOnTheLinkScaleAndMatchesAnIndependentComputation() {
         FittedModel fit = Fixtures.FIT;
         Scorer s = fit.scorerBuilder().intervalLevel(0.9).build();
         Table t = Fixtures.FRESH_TABLE;
@@ -92,14 +92,31 @@ class ScorerTest {
                     q += x[i][a] * c[a][b] * x[i][b];
                 }
             }
-            double mu = Math.exp(eta[i]);
-            double se = mu * Math.sqrt(q);   // Poisson: dispersion 1, dmu/deta = mu for the log link
-            assertEquals(se, sc.standardError()[i], 1e-10 * se);
-            assertEquals(mu - z * se, sc.lower(i), 1e-10 * mu);
-            assertEquals(mu + z * se, sc.upper(i), 1e-10 * mu);
+            double seEta = Math.sqrt(q);      // Poisson: dispersion 1
+            double mu = Math.exp(eta[i]);     // log link: dmu/deta = mu
+            assertEquals(seEta, sc.linkStandardError()[i], 1e-10 * seEta);
+            assertEquals(mu * seEta, sc.standardError()[i], 1e-10 * mu * seEta);
+            assertEquals(Math.exp(eta[i] - z * seEta), sc.lower(i), 1e-10 * mu);
+            assertEquals(Math.exp(eta[i] + z * seEta), sc.upper(i), 1e-10 * mu);
+            assertTrue(sc.lower(i) > 0 && sc.lower(i) < sc.mean(i) && sc.mean(i) < sc.upper(i));
         }
         assertFalse(fit.scorer().score(t).hasIntervals());
         assertThrows(IllegalStateException.class, () -> fit.scorer().score(t).lower());
+    }
+
+    @Test
+    void intervalEndsAreOrderedForADecreasingLinkAndStayInTheRange() {
+        // Gamma with the inverse link: mu = 1/eta decreases in eta, so the ends swap
+        Portfolio p = new Portfolio(300, 61);
+        FittedModel fit = Glm.fit(ModelSpec.builder("cost").family(Families.gamma()).link(Links.inverse())
+                .factor("region").numeric("age").build(), p.table("cost", p.response("gamma", false)));
+        Scores sc = fit.scorerBuilder().intervalLevel(0.95).build().score(Fixtures.FRESH_TABLE);
+        double z = new NormalDistribution().inverseCumulativeProbability(0.975); // Commons Math as the reference
+        for (int i = 0; i < sc.rowCount(); i++) {
+            assertTrue(sc.lower(i) < sc.mean(i) && sc.mean(i) < sc.upper(i), "row " + i);
+            assertEquals(1 / (sc.link(i) + z * sc.linkStandardError()[i]), sc.lower(i),
+                    1e-9 * sc.mean(i), "the lower end comes from the upper end on the link scale");
+        }
     }
 
     @Test
@@ -109,6 +126,8 @@ class ScorerTest {
                 .score(Fixtures.FRESH_TABLE);
         for (int i = 0; i < 20; i++) {
             assertEquals(2 * one.standardError()[i], four.standardError()[i], 1e-12 * four.standardError()[i]);
+            assertEquals(2 * one.linkStandardError()[i], four.linkStandardError()[i],
+                    1e-12 * four.linkStandardError()[i]);
         }
     }
 
