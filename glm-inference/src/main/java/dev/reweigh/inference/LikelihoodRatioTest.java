@@ -131,10 +131,9 @@ public final class LikelihoodRatioTest {
      */
     @Override
     public String toString() {
-        String ref = reference == ReferenceDistribution.F
-                ? "F(" + dfDifference + ", " + denominatorDf + ")" : "chi-square(" + dfDifference + ")";
         return "likelihood-ratio test: deviance falls from " + TextTable.number(smallerDeviance) + " to "
                 + TextTable.number(largerDeviance) + " for " + dfDifference + " df; statistic "
-                + TextTable.number(statistic) + " against " + ref + ", p-value " + TextTable.probability(pValue);
+                + TextTable.number(statistic) + " against " + reference.withDf(dfDifference, denominatorDf)
+                + ", p-value " + TextTable.probability(pValue);
     }
 }

@@ -13,5 +13,13 @@ public enum ReferenceDistribution {
     /** Chi-square: joint Wald and likelihood-ratio tests when the dispersion is known. */
     CHI_SQUARED,
     /** F: joint Wald and likelihood-ratio tests when the dispersion is estimated. */
-    F
+    F;
+
+    /**
+     * Names the reference of a joint test with its degrees of freedom, as the one-line
+     * descriptions show it: "F(2, 30)" for F, "chi-square(2)" otherwise.
+     */
+    String withDf(int df, int denominatorDf) {
+        return this == F ? "F(" + df + ", " + denominatorDf + ")" : "chi-square(" + df + ")";
+    }
 }

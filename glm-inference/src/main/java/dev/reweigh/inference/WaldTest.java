@@ -95,9 +95,7 @@ public final class WaldTest {
      */
     @Override
     public String toString() {
-        String ref = reference == ReferenceDistribution.F
-                ? "F(" + numeratorDf + ", " + denominatorDf + ")" : "chi-square(" + numeratorDf + ")";
-        return "Wald test of " + hypothesis + ": statistic " + TextTable.number(statistic) + " against " + ref
-                + ", p-value " + TextTable.probability(pValue);
+        return "Wald test of " + hypothesis + ": statistic " + TextTable.number(statistic) + " against "
+                + reference.withDf(numeratorDf, denominatorDf) + ", p-value " + TextTable.probability(pValue);
     }
 }
