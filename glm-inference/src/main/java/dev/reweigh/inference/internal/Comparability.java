@@ -36,21 +36,21 @@ public final class Comparability {
             throw new ModelMismatchException(prefix + "they were fitted on different tables (" + first.data().rowCount()
                     + " vs " + second.data().rowCount() + " rows)");
         }
+        // both arrays have one entry per used row, and the used rows are the same (checked above);
+        // Arrays.mismatch compares like Double.compare: NaN equals NaN, -0.0 differs from 0.0
         double[] ya = first.response();
         double[] yb = second.response();
-        for (int i = 0; i < ya.length; i++) {
-            if (Double.compare(ya[i], yb[i]) != 0) {
-                throw new ModelMismatchException(prefix + "the response differs at fitted row " + i + " (" + ya[i]
-                        + " vs " + yb[i] + "); both must be fitted to the same response values");
-            }
+        int i = Arrays.mismatch(ya, yb);
+        if (i >= 0) {
+            throw new ModelMismatchException(prefix + "the response differs at fitted row " + i + " (" + ya[i]
+                    + " vs " + yb[i] + "); both must be fitted to the same response values");
         }
         double[] wa = first.priorWeights();
         double[] wb = second.priorWeights();
-        for (int i = 0; i < wa.length; i++) {
-            if (Double.compare(wa[i], wb[i]) != 0) {
-                throw new ModelMismatchException(prefix + "the prior weights differ at fitted row " + i + " (" + wa[i]
-                        + " vs " + wb[i] + "); both must use the same weights");
-            }
+        i = Arrays.mismatch(wa, wb);
+        if (i >= 0) {
+            throw new ModelMismatchException(prefix + "the prior weights differ at fitted row " + i + " (" + wa[i]
+                    + " vs " + wb[i] + "); both must use the same weights");
         }
     }
 
