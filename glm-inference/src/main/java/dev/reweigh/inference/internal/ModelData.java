@@ -15,7 +15,6 @@ public final class ModelData {
     private final double[] mu;
     private final double[] eta;
     private final double[] priorWeights;
-    private final double[] workingWeights;
     private final int informativeRows;
 
     private ModelData(FittedModel fit) {
@@ -24,7 +23,6 @@ public final class ModelData {
         this.mu = fit.fittedValues();
         this.eta = fit.linearPredictor();
         this.priorWeights = fit.priorWeights();
-        this.workingWeights = fit.workingWeights();
         int count = 0;
         for (double w : priorWeights) {
             if (w > 0) {
@@ -99,14 +97,6 @@ public final class ModelData {
      */
     public double priorWeight(int i) {
         return priorWeights[i];
-    }
-
-    /**
-     * @param i row
-     * @return the working weight of row i at convergence
-     */
-    public double workingWeight(int i) {
-        return workingWeights[i];
     }
 
     /** @return a copy of the responses */
