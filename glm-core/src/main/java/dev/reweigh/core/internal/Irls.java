@@ -30,7 +30,7 @@ import java.util.Locale;
 public final class Irls {
     private static final System.Logger LOG = System.getLogger(Irls.class.getName());
     /** Up to this many entries of the expanded model matrix, AUTO takes the pivoted-QR route. */
-    static final long QR_AUTO_LIMIT = 1_000_000L;
+    static final long QR_AUTO_LIMIT = 250_000L;
     /** Up to this many entries, AUTO moves from Cholesky to QR when the condition estimate is poor. */
     static final long QR_SWITCH_LIMIT = 8_000_000L;
     /** AUTO leaves the Cholesky route when the condition estimate exceeds this. */
