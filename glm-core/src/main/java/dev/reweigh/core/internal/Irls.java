@@ -32,7 +32,7 @@ public final class Irls {
     /** Up to this many entries of the expanded model matrix, AUTO takes the pivoted-QR route. */
     static final long QR_AUTO_LIMIT = 250_000L;
     /** Up to this many entries, AUTO moves from Cholesky to QR when the condition estimate is poor. */
-    static final long QR_SWITCH_LIMIT = 8_000_000L;
+    static final long QR_SWITCH_LIMIT = 2_000_000L;
     /** AUTO leaves the Cholesky route when the condition estimate exceeds this. */
     static final double CHOLESKY_CONDITION_LIMIT = 1e4;
 
