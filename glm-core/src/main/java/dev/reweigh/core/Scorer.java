@@ -503,7 +503,8 @@ public final class Scorer {
         /**
          * Chooses how to score a row whose factor level was not seen in the fit: false (the
          * default) throws {@link UnseenLevelException}; true scores it at the factor's reference
-         * level (its columns all zero) and flags the row.
+         * level (its columns all zero; for a factor with a column for every level, as in a model
+         * without intercept, that means no level effect) and flags the row.
          *
          * @param on true to fall back to the reference level
          * @return this builder

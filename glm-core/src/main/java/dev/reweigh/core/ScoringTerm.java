@@ -115,9 +115,10 @@ abstract class ScoringTerm {
                     }
                     levels.add(level);
                 }
-                String ref = JsonFields.string(m, "reference", path);
-                int r = levels.indexOf(ref);
-                if (r < 0) {
+                // null: every level has a column (the first factor of a model without intercept)
+                String ref = JsonFields.stringOrNull(m, "reference", path);
+                int r = ref == null ? -1 : levels.indexOf(ref);
+                if (ref != null && r < 0) {
                     throw new ArtifactException(JsonFields.child(path, "reference"), "reference level '" + ref
                             + "' is not one of the levels " + levels);
                 }
@@ -260,6 +261,7 @@ abstract class ScoringTerm {
         }
     }
 
+    /** A factor coded against a reference level, or with a column for every level when ref is -1. */
     static final class Factor extends ScoringTerm {
         final String column;
         final List<String> levels;
@@ -293,7 +295,7 @@ abstract class ScoringTerm {
 
         @Override
         long partWidth(int k) {
-            return levels.size() - 1L;
+            return ref < 0 ? levels.size() : levels.size() - 1L;
         }
 
         @Override
@@ -309,14 +311,14 @@ abstract class ScoringTerm {
 
         @Override
         Term toTerm() {
-            return Term.factor(column, levels.get(ref));
+            return ref < 0 ? Term.factor(column) : Term.factor(column, levels.get(ref));
         }
 
         @Override
         Map<String, Object> toJson() {
             Map<String, Object> m = json("factor", column);
             m.put("levels", new ArrayList<Object>(levels));
-            m.put("reference", levels.get(ref));
+            m.put("reference", ref < 0 ? null : levels.get(ref));
             return m;
         }
 
@@ -330,6 +332,9 @@ abstract class ScoringTerm {
             int input = layout.factorInput(column, levels);
             int slot = layout.slots(1);
             int r = ref;
+            if (r < 0) {
+                return (in, row, s) -> s.code[slot] = in.level(input, row); // -1: unseen, no column
+            }
             return (in, row, s) -> {
                 int k = in.level(input, row);   // -1: unseen level scored at the reference
                 s.code[slot] = k < 0 || k == r ? -1 : (k < r ? k : k - 1);

@@ -159,6 +159,40 @@ class ScorerTest {
         assertThrows(dev.reweigh.families.UnknownNameException.class, () -> s.isFactor("colour"));
     }
 
+    /**
+     * A factor with a column for every level ("reference": null, the coding of a model without
+     * intercept) scores each level with its own coefficient; written by hand and signed.
+     */
+    @Test
+    void aFactorWithAColumnForEveryLevelScoresEachLevelsCoefficient() {
+        Map<String, Object> doc = ArtifactText.parse(Fixtures.JSON);
+        Map<String, Object> model = ArtifactText.object(doc, "model");
+        Map<String, Object> spec = ArtifactText.object(doc, "model", "specification");
+        spec.put("intercept", false);
+        spec.put("logOffset", null);
+        Map<String, Object> factor = new java.util.LinkedHashMap<>();
+        factor.put("kind", "factor");
+        factor.put("column", "g");
+        factor.put("levels", List.of("a", "b", "c"));
+        factor.put("reference", null);
+        spec.put("terms", List.of(factor, Map.of("kind", "numeric", "column", "x")));
+        model.put("family", "gaussian");
+        model.put("link", "identity");
+        model.put("columns", List.of("g=a", "g=b", "g=c", "x"));
+        model.put("coefficients", List.of(1.0, 2.0, 3.0, 0.5));
+        model.put("covariance", List.of(List.of(1.0, 0.0, 0.0, 0.0), List.of(0.0, 1.0, 0.0, 0.0),
+                List.of(0.0, 0.0, 1.0, 0.0), List.of(0.0, 0.0, 0.0, 1.0)));
+        ModelArtifact a = ModelArtifact.fromJson(ArtifactText.signed(doc));
+        assertEquals(List.of("g=a", "g=b", "g=c", "x"), a.columnNames());
+        Scores sc = a.scorer().score(Table.builder().categorical("g", "a", "b", "c").numeric("x", 2, 2, 4).build());
+        assertEquals(List.of(2.0, 3.0, 5.0), List.of(sc.link(0), sc.link(1), sc.link(2)));
+        assertTrue(a.toJson().contains("\"reference\" : null"), "written back with no reference level");
+        Scores fallback = a.scorerBuilder().unseenLevelsAtReference(true).build()
+                .score(Table.builder().categorical("g", "z").numeric("x", 2).build());
+        assertEquals(1.0, fallback.link(0), "an unseen level of a fully coded factor adds no level effect");
+        assertTrue(fallback.usedReferenceLevel(0));
+    }
+
     @Test
     void logitMeansAreProbabilities() {
         Portfolio p = new Portfolio(400, 44);
