@@ -108,34 +108,24 @@ public final class NegativeBinomialTheta {
     }
 
     private static double momentStart(ModelData d) {
-        double sum = 0;
-        double count = 0;
-        for (int i = 0; i < d.rows(); i++) {
-            double w = d.priorWeight(i);
-            if (w > 0) {
-                double mu = d.mu(i);
-                double r = d.y(i) - mu;
-                sum += w * (r * r - mu) / (mu * mu);
-                count += w;
-            }
-        }
+        double sum = d.sumOverInformativeRows(i -> {
+            double mu = d.mu(i);
+            double r = d.y(i) - mu;
+            return d.priorWeight(i) * (r * r - mu) / (mu * mu);
+        });
+        double count = d.sumOverInformativeRows(d::priorWeight);
         double inverse = sum / count;
         return inverse > 0 ? 1 / inverse : 10;
     }
 
     /** The negative binomial log-likelihood in theta at the current means, without the constant. */
     private static double logLikelihood(ModelData d, double theta) {
-        double s = 0;
-        for (int i = 0; i < d.rows(); i++) {
-            double w = d.priorWeight(i);
-            if (w > 0) {
-                double y = d.y(i);
-                double mu = d.mu(i);
-                s += w * (Gamma.logGamma(y + theta) - Gamma.logGamma(theta) + theta * Math.log(theta / (theta + mu))
-                        + (y > 0 ? y * Math.log(mu / (theta + mu)) : 0));
-            }
-        }
-        return s;
+        return d.sumOverInformativeRows(i -> {
+            double y = d.y(i);
+            double mu = d.mu(i);
+            return d.priorWeight(i) * (Gamma.logGamma(y + theta) - Gamma.logGamma(theta)
+                    + theta * Math.log(theta / (theta + mu)) + (y > 0 ? y * Math.log(mu / (theta + mu)) : 0));
+        });
     }
 
     private static double maximise(ModelData d, double start) {
@@ -143,17 +133,14 @@ public final class NegativeBinomialTheta {
     }
 
     private static double standardErrorOf(ModelData d, double theta) {
-        double information = 0;
-        for (int i = 0; i < d.rows(); i++) {
-            double w = d.priorWeight(i);
-            if (w > 0) {
-                double y = d.y(i);
-                double mu = d.mu(i);
-                double second = Gamma.trigamma(y + theta) - Gamma.trigamma(theta) + 1 / theta - 2 / (theta + mu)
-                        + (y + theta) / ((theta + mu) * (theta + mu));
-                information -= w * second;
-            }
-        }
+        // the observed information is minus the second derivative of the log-likelihood in theta
+        double information = -d.sumOverInformativeRows(i -> {
+            double y = d.y(i);
+            double mu = d.mu(i);
+            double second = Gamma.trigamma(y + theta) - Gamma.trigamma(theta) + 1 / theta - 2 / (theta + mu)
+                    + (y + theta) / ((theta + mu) * (theta + mu));
+            return d.priorWeight(i) * second;
+        });
         return information > 0 ? Math.sqrt(1 / information) : Double.POSITIVE_INFINITY;
     }
 

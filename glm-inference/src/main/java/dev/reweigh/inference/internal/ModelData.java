@@ -139,10 +139,20 @@ public final class ModelData {
      * @return the sum of the prior-weighted log-densities
      */
     public double logLikelihood(Family family, double dispersion) {
+        return sumOverInformativeRows(i -> family.logDensity(y[i], mu[i], dispersion, priorWeights[i]));
+    }
+
+    /**
+     * Sums a per-row quantity over the informative rows, in row order.
+     *
+     * @param value the quantity of row i
+     * @return the sum
+     */
+    public double sumOverInformativeRows(IntToDoubleFunction value) {
         double sum = 0;
         for (int i = 0; i < y.length; i++) {
             if (priorWeights[i] > 0) {
-                sum += family.logDensity(y[i], mu[i], dispersion, priorWeights[i]);
+                sum += value.applyAsDouble(i);
             }
         }
         return sum;
