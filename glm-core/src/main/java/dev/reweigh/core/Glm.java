@@ -18,6 +18,16 @@ import java.util.TreeMap;
 /**
  * Fits generalized linear models by iteratively reweighted least squares.
  *
+ * <p>How a fit runs: rows with missing values are rejected (or dropped when the specification
+ * says so) and every value is checked against its role; the terms are encoded once (factor
+ * levels as codes, reference levels resolved); the rank is decided at the first iteration, in
+ * model order, so that of collinear columns the later one is aliased; each iteration solves a
+ * weighted least-squares step (see {@link Solver}) and halves it when the deviance rises or a
+ * mean leaves the family's domain. For links other than the family's canonical one, Newton steps
+ * with the observed information are used whenever its cross-product matrix is positive definite,
+ * since Fisher scoring converges only linearly there. The fit has converged when the relative
+ * changes of the deviance and of the coefficients are below {@link FitOptions#tolerance()}.
+ *
  * <pre>{@code
  * FittedModel fit = Glm.fit(spec, table);
  * System.out.println(fit);            // coefficients, deviance, warnings

@@ -7,8 +7,11 @@ package dev.reweigh.core;
  */
 public enum Solver {
     /**
-     * Chooses per fit: the pivoted QR route when the dense model matrix is small enough to
-     * expand or the cross-product matrix is ill-conditioned, else the Cholesky route.
+     * Chooses per fit: the pivoted QR route when the expanded model matrix has at most 250,000
+     * entries (rows times columns); otherwise the Cholesky route, moving to pivoted QR when its
+     * condition estimate exceeds 1e4 and the matrix has at most 2 million entries. Small and
+     * ill-conditioned problems (such as the NIST reference problems) therefore get the accurate
+     * route, large ones the fast route.
      *
      * @since 0.1
      */
