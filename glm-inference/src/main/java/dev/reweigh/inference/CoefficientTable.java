@@ -132,9 +132,10 @@ public final class CoefficientTable {
             List<String> cells = new ArrayList<>();
             cells.add(r.name());
             if (r.isAliased() || r.isFixed()) {
+                cells.add(r.isAliased() ? "aliased" : TextTable.number(r.estimate()));
+                cells.add(r.isFixed() ? "held fixed" : "");
                 while (cells.size() < titles.size()) {
-                    cells.add(cells.size() == 1 ? (r.isAliased() ? "aliased" : TextTable.number(r.estimate()))
-                            : cells.size() == 2 && r.isFixed() ? "held fixed" : "");
+                    cells.add("");
                 }
             } else {
                 Interval w = r.waldInterval().orElseThrow();
