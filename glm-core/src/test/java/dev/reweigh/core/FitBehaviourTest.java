@@ -154,6 +154,70 @@ class FitBehaviourTest {
     }
 
     @Test
+    void tweedieAndNegativeBinomialFitsSolveTheirScoreEquations() {
+        double[] claims = MOTOR.numeric("claims");
+        double[] severity = MOTOR.numeric("severity");
+        double[] cost = new double[claims.length];
+        for (int i = 0; i < cost.length; i++) {
+            cost[i] = claims[i] * severity[i];
+        }
+        Table t = Table.builder().numeric("age", MOTOR.numeric("age"))
+                .categorical("region", MOTOR.levels("region"), InvariancePropertyTest.texts(MOTOR, "region"))
+                .numeric("exposure", MOTOR.numeric("exposure")).numeric("claims", claims).numeric("cost", cost).build();
+        double p = 1.5;
+        FittedModel tweedie = Glm.fit(ModelSpec.builder("cost").family(Families.tweedie(p)).link(Links.log()).factor("region")
+                .numeric("age").logOffset("exposure").build(), t);
+        FittedModel negbin = Glm.fit(FREQUENCY.withFamily(Families.negativeBinomial(2.0)), t);
+        assertTrue(tweedie.converged(), tweedie.toString());
+        assertTrue(negbin.converged(), negbin.toString());
+        double[][] x = tweedie.modelMatrix(t);
+        double[] mt = tweedie.fittedValues();
+        double[] mn = negbin.fittedValues();
+        for (int j = 0; j < x[0].length; j++) {
+            double st = 0;
+            double at = 0;
+            double sn = 0;
+            double an = 0;
+            for (int i = 0; i < x.length; i++) {
+                // log link: score = sum (y - mu) / V(mu) * mu * x
+                double tt = (cost[i] - mt[i]) / Math.pow(mt[i], p) * mt[i] * x[i][j];
+                double tn = (claims[i] - mn[i]) / (mn[i] + mn[i] * mn[i] / 2.0) * mn[i] * x[i][j];
+                st += tt;
+                at += Math.abs(tt);
+                sn += tn;
+                an += Math.abs(tn);
+            }
+            assertTrue(Math.abs(st) < 1e-9 * at, "tweedie score " + j);
+            assertTrue(Math.abs(sn) < 1e-9 * an, "negative binomial score " + j);
+        }
+    }
+
+    @Test
+    void aLinkWhoseDomainTheOffsetCannotMeetFailsWithAMessage() {
+        // the canonical Tweedie link needs eta > 0; log-exposures below 0 push every step out
+        double[] claims = MOTOR.numeric("claims");
+        Table t = Table.builder().numeric("age", MOTOR.numeric("age")).numeric("claims", claims)
+                .numeric("exposure", MOTOR.numeric("exposure")).build();
+        ModelSpec spec = ModelSpec.builder("claims").family(Families.tweedie(1.5)).numeric("age")
+                .offset("exposure").build();
+        try {
+            FittedModel fit = Glm.fit(spec.toBuilder().offset("exposure").build(), t);
+            // if a fit comes back it must be a real one
+            assertFalse(Double.isNaN(fit.deviance()));
+        } catch (dev.reweigh.families.ReweighException e) {
+            assertTrue(e.getMessage().contains("domain"), e.getMessage());
+        }
+        double[] negative = new double[claims.length];
+        java.util.Arrays.fill(negative, -50);
+        Table bad = Table.builder().numeric("age", MOTOR.numeric("age")).numeric("claims", claims)
+                .numeric("off", negative).build();
+        dev.reweigh.families.ReweighException e = assertThrows(dev.reweigh.families.ReweighException.class,
+                () -> Glm.fit(ModelSpec.builder("claims").family(Families.tweedie(1.5)).intercept(false)
+                        .offset("off").build(), bad));
+        assertTrue(e.getMessage().contains("domain"), e.getMessage());
+    }
+
+    @Test
     void theReportIsReadable() {
         FittedModel fit = Glm.fit(FREQUENCY, MOTOR);
         String s = fit.toString();

@@ -252,7 +252,11 @@ public final class Irls {
             }
         }
         if (beta == null) {
-            beta = new double[p];
+            throw new ReweighException("the fit found no coefficients that keep every mean in the domain of the "
+                    + family.name() + " family and the " + link.name() + " link (means must be " + family.meanDomain()
+                    + ", linear predictors " + link.etaDomain() + "): every full step from the starting means left it"
+                    + " within " + iter + " iterations; check the link and the offset, or give starting coefficients"
+                    + " in the fit options");
         }
         // final quantities at the accepted coefficients
         double[] beta2 = beta.clone();
@@ -263,7 +267,10 @@ public final class Irls {
         }
         double[] etaLow = new double[n];
         pr.x.multiply(beta2, pr.offset, eta, etaLow);
-        means(eta, mu);
+        if (!means(eta, mu)) {
+            throw new ReweighException("the final coefficients give a mean outside the domain of the " + family.name()
+                    + " family or the " + link.name() + " link; give starting coefficients in the fit options");
+        }
         dev = identityShortcut && "gaussian".equals(family.name()) ? gaussianDeviance(eta, etaLow) : deviance(mu);
         workingValues(eta, mu, w, z, identityShortcut);
         double[][] cov = route.covariance(w);
