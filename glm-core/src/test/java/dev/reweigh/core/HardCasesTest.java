@@ -82,6 +82,37 @@ class HardCasesTest {
     }
 
     @Test
+    void identityLinkPoissonAndInverseLinkGammaStayInTheirDomains() {
+        Random rnd = new Random(5);
+        int n = 60;
+        double[] x = new double[n];
+        double[] counts = new double[n];
+        double[] sizes = new double[n];
+        for (int i = 0; i < n; i++) {
+            x[i] = 4 * rnd.nextDouble();
+            counts[i] = Portfolios.poisson(rnd, 0.05 + 1.5 * x[i]);
+            sizes[i] = Portfolios.gamma(rnd, 0.8) / (0.05 + 0.5 * x[i]) / 0.8;
+        }
+        Table t = Table.builder().numeric("x", x).numeric("counts", counts).numeric("sizes", sizes).build();
+        FittedModel pois = Glm.fit(ModelSpec.builder("counts").family(Families.poisson()).link(Links.identity())
+                .numeric("x").build(), t);
+        FittedModel gam = Glm.fit(ModelSpec.builder("sizes").family(Families.gamma()).numeric("x").build(), t);
+        assertTrue(pois.converged(), pois.warnings().toString());
+        assertTrue(gam.converged(), gam.warnings().toString());
+        double[] mp = pois.fittedValues();
+        double[] mg = gam.fittedValues();
+        double[] tp = new double[n];
+        double[] tg = new double[n];
+        for (int i = 0; i < n; i++) {
+            assertTrue(mp[i] > 0 && mg[i] > 0);
+            tp[i] = (counts[i] - mp[i]) / mp[i];        // identity link: dmu/deta = 1, V = mu
+            tg[i] = -(sizes[i] - mg[i]) / (mg[i] * mg[i]) * mg[i] * mg[i]; // inverse link: dmu/deta = -mu^2
+        }
+        assertTrue(maxRelativeScore(pois.modelMatrix(t), tp) < 1e-9);
+        assertTrue(maxRelativeScore(gam.modelMatrix(t), tg) < 1e-9);
+    }
+
+    @Test
     void poissonWithManyZerosAndExposuresOverSixOrdersOfMagnitude() {
         Random rnd = new Random(7);
         int n = 400;
