@@ -72,6 +72,25 @@ final class DesignRecipe {
         return encoders;
     }
 
+    /** The reference level of each factor, as "column=level", in model order without repeats. */
+    List<String> referenceLevels() {
+        java.util.LinkedHashSet<String> out = new java.util.LinkedHashSet<>();
+        for (Encoder e : encoders) {
+            collectReferences(e, out);
+        }
+        return List.copyOf(out);
+    }
+
+    private static void collectReferences(Encoder e, java.util.Set<String> out) {
+        if (e instanceof FactorEncoder) {
+            FactorEncoder f = (FactorEncoder) e;
+            out.add(f.column + "=" + f.levels.get(f.ref));
+        } else if (e instanceof InteractionEncoder) {
+            collectReferences(((InteractionEncoder) e).a, out);
+            collectReferences(((InteractionEncoder) e).b, out);
+        }
+    }
+
     static DesignRecipe create(ModelSpec spec, Table data, int[] rows, double[] priorWeights) {
         List<Encoder> enc = new ArrayList<>();
         for (Term t : spec.terms()) {

@@ -657,6 +657,10 @@ public final class FittedModel {
                 converged ? "converged" : "NOT converged", iterations));
         sb.append(String.format(Locale.ROOT, "  deviance %s with %d degrees of freedom (null model: %s with %d)%n",
                 num(deviance), residualDf, num(nullDeviance), nullDf));
+        List<String> references = recipe.referenceLevels();
+        if (!references.isEmpty()) {
+            sb.append("  reference levels (no column): ").append(String.join(", ", references)).append('\n');
+        }
         double phi = dispersionForReport();
         sb.append(String.format(Locale.ROOT, "  dispersion used for standard errors: %s%s%n", num(phi),
                 family().isDispersionFixed() ? " (fixed by the family)" : " (Pearson estimate)"));

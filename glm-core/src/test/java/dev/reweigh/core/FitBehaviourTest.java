@@ -224,6 +224,18 @@ class FitBehaviourTest {
         assertTrue(s.contains("poisson family, log link"));
         assertTrue(s.contains("region=South") && s.contains("intercept") && s.contains("std error"));
         assertTrue(s.contains("dispersion used for standard errors: 1"));
+        int[] codes = MOTOR.codes("region");
+        int[] counts = new int[MOTOR.levels("region").size()];
+        for (int c : codes) {
+            counts[c]++;
+        }
+        int best = 0;
+        for (int k = 1; k < counts.length; k++) {
+            best = counts[k] > counts[best] ? k : best;
+        }
+        // the default reference level is the one with the largest total weight (here: most rows)
+        String reference = "region=" + MOTOR.levels("region").get(best);
+        assertTrue(s.contains("reference levels (no column): " + reference), s);
         assertFalse(s.contains("*"));
         assertTrue(fit.warnings().isEmpty());
         assertTrue(fit.converged());
