@@ -8,6 +8,9 @@ import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.ForkJoinPool;
 import java.util.concurrent.TimeUnit;
+import net.jqwik.api.ForAll;
+import net.jqwik.api.Property;
+import net.jqwik.api.constraints.IntRange;
 import org.junit.jupiter.api.Test;
 
 /** Results are bit-identical whatever the number of threads and whichever executor runs them. */
@@ -54,6 +57,20 @@ class ThreadIndependenceTest {
             }
             assertArrayEquals(one, run(design, blockRows, t, Runnable::run), t + " workers on a direct executor");
         }
+    }
+
+    @Property(tries = 50)
+    void anyTwoThreadCountsGiveTheSameBits(@ForAll long seed, @ForAll @IntRange(min = 1, max = 3000) int n,
+            @ForAll @IntRange(min = 1, max = 9) int d, @ForAll @IntRange(min = 0, max = 2) int factors,
+            @ForAll @IntRange(min = 16, max = 700) int blockRows, @ForAll @IntRange(min = 1, max = 8) int t1,
+            @ForAll @IntRange(min = 1, max = 8) int t2) {
+        int[] levels = new int[factors];
+        for (int f = 0; f < factors; f++) {
+            levels[f] = 2 + f * 3;
+        }
+        RandomDesign design = RandomDesign.generate(seed, n, d, levels, true);
+        assertArrayEquals(run(design, blockRows, t1, null), run(design, blockRows, t2, null),
+                t1 + " vs " + t2 + " threads, " + blockRows + " rows per block");
     }
 
     @Test
