@@ -67,6 +67,16 @@ class FitBehaviourTest {
             assertEquals(a.coefficients()[j], b.coefficients()[j], 1e-8);
             assertEquals(a.coefficients()[j], c.coefficients()[j], 1e-8);
         }
+        // a non-canonical link (Newton steps) from caller's coefficients
+        ModelSpec severity = ModelSpec.builder("severity").family(Families.gamma()).link(Links.log()).factor("region")
+                .numeric("age").build();
+        FittedModel s = Glm.fit(severity, MOTOR);
+        double[] s0 = new double[s.columnCount()];
+        s0[0] = 7;
+        FittedModel s2 = Glm.fit(severity, MOTOR, FitOptions.builder().startCoefficients(s0).build());
+        for (int j = 0; j < s.columnCount(); j++) {
+            assertEquals(s.coefficients()[j], s2.coefficients()[j], 1e-8);
+        }
     }
 
     @Test

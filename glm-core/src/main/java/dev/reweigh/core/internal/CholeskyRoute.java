@@ -24,6 +24,8 @@ final class CholeskyRoute implements WlsRoute {
     private final double[] scale;
     private boolean[] excluded;
     private double condition = 1.0;
+    private double[] decidedW;
+    private double[] decidedZ;
     /** Large p: the vectorised panel factorization of the wls package (no condition estimate). */
     private final dev.reweigh.core.internal.wls.NormalEquations large;
     /** Above this many columns the O(p^3) work goes to {@link #large}. */
@@ -42,14 +44,17 @@ final class CholeskyRoute implements WlsRoute {
     }
 
     @Override
-    public boolean[] decideExcluded(double[] w, boolean[] candidates) {
-        accumulator.accumulate(x, w, new double[x.rows()], gram, xtwz);
+    public boolean[] decideExcluded(double[] w, double[] z, boolean[] candidates) {
+        accumulator.accumulate(x, w, z, gram, xtwz);
         boolean[] out = new boolean[p];
         for (int j = 0; j < p; j++) {
             out[j] = !candidates[j];
         }
         factor(out, true);
         excluded = out;
+        // the deciding factorization skips the aliased columns, so it is the one the first solve needs
+        decidedW = w;
+        decidedZ = z;
         return out.clone();
     }
 
@@ -121,9 +126,14 @@ final class CholeskyRoute implements WlsRoute {
 
     @Override
     public boolean solve(double[] w, double[] z, double[] beta) {
-        accumulator.accumulate(x, w, z, gram, xtwz);
-        if (!factor(excluded, false)) {
-            return false;
+        boolean fresh = w == decidedW && z == decidedZ;
+        decidedW = null;
+        decidedZ = null;
+        if (!fresh) {
+            accumulator.accumulate(x, w, z, gram, xtwz);
+            if (!factor(excluded, false)) {
+                return false;
+            }
         }
         if (large != null) {
             large.solve(xtwz, excluded, beta);
@@ -162,6 +172,8 @@ final class CholeskyRoute implements WlsRoute {
 
     @Override
     public double[][] covariance(double[] w) {
+        decidedW = null;
+        decidedZ = null;
         accumulator.accumulate(x, w, new double[x.rows()], gram, xtwz);
         double[][] cov = new double[p][p];
         for (double[] row : cov) {

@@ -122,7 +122,8 @@ public final class Irls {
             }
             iter++;
             boolean newtonStep = false;
-            if (observedInformation && beta != null && observedWorkingValues(eta, mu, wObs, zObs)) {
+            if (observedInformation && beta != null && excluded != null
+                    && observedWorkingValues(eta, mu, wObs, zObs)) {
                 if (newtonRoute == null) {
                     newtonRoute = new CholeskyRoute(pr.x, CrossProducts.accumulator(options.threads()),
                             options.rankTolerance());
@@ -132,7 +133,7 @@ public final class Irls {
             }
             workingValues(eta, mu, w, z, identityShortcut);
             if (excluded == null) {
-                excluded = route.decideExcluded(w, pr.candidates);
+                excluded = route.decideExcluded(w, z, pr.candidates);
                 if (beta != null) {
                     for (int j = 0; j < p; j++) {
                         if (excluded[j]) {

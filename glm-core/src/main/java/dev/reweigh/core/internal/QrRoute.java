@@ -58,7 +58,7 @@ final class QrRoute implements WlsRoute {
     }
 
     @Override
-    public boolean[] decideExcluded(double[] w, boolean[] candidates) {
+    public boolean[] decideExcluded(double[] w, double[] z, boolean[] candidates) {
         boolean[] ex = new boolean[p];
         // column-major copy of sqrt(W) X with unit-length columns
         double[][] a = new double[p][n];

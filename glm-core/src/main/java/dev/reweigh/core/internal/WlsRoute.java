@@ -13,10 +13,12 @@ interface WlsRoute {
      * columns the later one in model order is aliased). Called once; the decision is then held.
      *
      * @param w the working weights
+     * @param z the working response of the same iteration (a route may keep its factorization for
+     *     the {@link #solve} that follows with the same arrays)
      * @param candidates true for the columns that may enter (not fixed)
      * @return true for each column that is aliased or not a candidate
      */
-    boolean[] decideExcluded(double[] w, boolean[] candidates);
+    boolean[] decideExcluded(double[] w, double[] z, boolean[] candidates);
 
     /**
      * Solves the step over the kept columns.
