@@ -94,9 +94,8 @@ final class DesignRecipe {
     static DesignRecipe create(ModelSpec spec, Table data, int[] rows, double[] priorWeights) {
         List<Encoder> enc = new ArrayList<>();
         for (Term t : spec.terms()) {
-            enc.add(resolve(t, data, rows, priorWeights, true));
+            enc.add(resolve(t, data, rows, priorWeights));
         }
-        DesignRecipe probe = new DesignRecipe(spec.hasIntercept(), enc, List.of());
         List<String> names = new ArrayList<>();
         if (spec.hasIntercept()) {
             names.add("intercept");
@@ -114,7 +113,7 @@ final class DesignRecipe {
                         + "': a term appears twice in the specification");
             }
         }
-        return new DesignRecipe(probe.intercept, enc, List.copyOf(names));
+        return new DesignRecipe(spec.hasIntercept(), enc, List.copyOf(names));
     }
 
     DesignMatrix build(Table t, int[] rows) {
@@ -169,7 +168,7 @@ final class DesignRecipe {
 
     // ---------------------------------------------------------------- term resolution
 
-    private static Encoder resolve(Term t, Table data, int[] rows, double[] pw, boolean topLevel) {
+    private static Encoder resolve(Term t, Table data, int[] rows, double[] pw) {
         switch (t.kind()) {
             case NUMERIC:
                 requireNumeric(data, t.column(), "a numeric term");
@@ -184,8 +183,8 @@ final class DesignRecipe {
                 return t.isOrthogonal() ? OrthogonalPolynomialEncoder.create(t.column(), t.degree(), data, rows)
                         : new RawPolynomialEncoder(t.column(), t.degree());
             default:
-                Encoder a = resolve(t.left(), data, rows, pw, false);
-                Encoder b = resolve(t.right(), data, rows, pw, false);
+                Encoder a = resolve(t.left(), data, rows, pw);
+                Encoder b = resolve(t.right(), data, rows, pw);
                 return new InteractionEncoder(a, b);
         }
     }
