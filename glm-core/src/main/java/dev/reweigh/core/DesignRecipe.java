@@ -72,7 +72,10 @@ final class DesignRecipe {
         return encoders;
     }
 
-    /** The reference level of each factor, as "column=level", in model order without repeats. */
+    /**
+     * The reference level of each factor, as "column=level", in model order without repeats; a
+     * factor with a column for every level has none.
+     */
     List<String> referenceLevels() {
         java.util.LinkedHashSet<String> out = new java.util.LinkedHashSet<>();
         for (Encoder e : encoders) {
@@ -84,17 +87,31 @@ final class DesignRecipe {
     private static void collectReferences(Encoder e, java.util.Set<String> out) {
         if (e instanceof FactorEncoder) {
             FactorEncoder f = (FactorEncoder) e;
-            out.add(f.column + "=" + f.levels.get(f.ref));
+            if (f.ref >= 0) {
+                out.add(f.column + "=" + f.levels.get(f.ref));
+            }
         } else if (e instanceof InteractionEncoder) {
             collectReferences(((InteractionEncoder) e).a, out);
             collectReferences(((InteractionEncoder) e).b, out);
         }
     }
 
+    /**
+     * Resolves the specification's terms against the fitting rows. Without an intercept the first
+     * factor main effect gets a column for every level (no reference level, whatever reference the
+     * term names), so that no level's effect is lost; every other factor, and every factor inside
+     * an interaction, is coded against its reference level (common practice, no source).
+     */
     static DesignRecipe create(ModelSpec spec, Table data, int[] rows, double[] priorWeights) {
         List<Encoder> enc = new ArrayList<>();
+        boolean fullCodingPending = !spec.hasIntercept();
         for (Term t : spec.terms()) {
-            enc.add(resolve(t, data, rows, priorWeights));
+            if (fullCodingPending && isFactorMainEffect(t, data)) {
+                enc.add(factor(t.column(), t.referenceLevel().orElse(null), true, data, rows, priorWeights));
+                fullCodingPending = false;
+            } else {
+                enc.add(resolve(t, data, rows, priorWeights));
+            }
         }
         List<String> names = new ArrayList<>();
         if (spec.hasIntercept()) {
@@ -168,15 +185,20 @@ final class DesignRecipe {
 
     // ---------------------------------------------------------------- term resolution
 
+    private static boolean isFactorMainEffect(Term t, Table data) {
+        return t.kind() == Term.Kind.FACTOR
+                || t.kind() == Term.Kind.COLUMN && data.hasColumn(t.column()) && data.isCategorical(t.column());
+    }
+
     private static Encoder resolve(Term t, Table data, int[] rows, double[] pw) {
         switch (t.kind()) {
             case NUMERIC:
                 requireNumeric(data, t.column(), "a numeric term");
                 return new NumericEncoder(t.column());
             case FACTOR:
-                return factor(t.column(), t.referenceLevel().orElse(null), data, rows, pw);
+                return factor(t.column(), t.referenceLevel().orElse(null), false, data, rows, pw);
             case COLUMN:
-                return data.isCategorical(t.column()) ? factor(t.column(), null, data, rows, pw)
+                return data.isCategorical(t.column()) ? factor(t.column(), null, false, data, rows, pw)
                         : new NumericEncoder(t.column());
             case POLYNOMIAL:
                 requireNumeric(data, t.column(), "a polynomial term");
@@ -196,19 +218,21 @@ final class DesignRecipe {
         }
     }
 
-    private static Encoder factor(String column, String reference, Table data, int[] rows, double[] pw) {
+    /** A factor coded against its reference level, or with a column for every level when full. */
+    private static Encoder factor(String column, String reference, boolean full, Table data, int[] rows,
+            double[] pw) {
         if (data.isNumeric(column)) {
             throw new ModelSpecException("column '" + column + "' is numeric and cannot be a factor; to use its values"
                     + " as levels, add it to the Table as a categorical column (Table.Builder.categorical)");
         }
         List<String> levels = data.levels(column);
-        int ref;
+        int ref = 0;
         if (reference != null) {
             ref = levels.indexOf(reference);
             if (ref < 0) {
                 throw new UnknownNameException("reference level of column '" + column + "'", reference, levels);
             }
-        } else {
+        } else if (!full) {
             double[] total = new double[levels.size()];
             int[] codes = data.categorical(column).codes;
             for (int i = 0; i < rows.length; i++) {
@@ -217,14 +241,13 @@ final class DesignRecipe {
                     total[c] += pw[i];
                 }
             }
-            ref = 0;
             for (int k = 1; k < total.length; k++) {
                 if (total[k] > total[ref]) {
                     ref = k;
                 }
             }
         }
-        return new FactorEncoder(column, levels, ref);
+        return new FactorEncoder(column, levels, full ? -1 : ref);
     }
 
     static final class NumericEncoder implements Encoder {
@@ -252,6 +275,7 @@ final class DesignRecipe {
         return v;
     }
 
+    /** A factor coded against level ref (no column), or with a column for every level when ref is -1. */
     static final class FactorEncoder implements Encoder {
         final String column;
         final List<String> levels;
@@ -295,7 +319,7 @@ final class DesignRecipe {
                 if (k == Integer.MIN_VALUE) {
                     throw new UnknownNameException("level of column '" + column + "'", cat.levels.get(c), levels);
                 }
-                codes[i] = k == ref ? -1 : (k < ref ? k : k - 1);
+                codes[i] = ref < 0 || k < ref ? k : (k == ref ? -1 : k - 1);
             }
             return List.of(Part.factor(names, codes, null));
         }

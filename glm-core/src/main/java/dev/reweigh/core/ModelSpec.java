@@ -524,7 +524,10 @@ public final class ModelSpec {
         }
 
         /**
-         * Includes (default) or leaves out the intercept.
+         * Includes (default) or leaves out the intercept. Without an intercept the first factor
+         * term (a main effect, in term order) has a column for every level and no reference level,
+         * so that every level keeps its own effect; a reference level named for it is not used.
+         * Later factors, and factors inside interactions, keep their reference level.
          *
          * @param on true for an intercept
          * @return this builder

@@ -80,7 +80,9 @@ public final class Term {
     }
 
     /**
-     * A categorical column coded against the given reference level (which gets no column).
+     * A categorical column coded against the given reference level (which gets no column). In a
+     * model without intercept the first factor term has a column for every level instead (see
+     * {@link ModelSpec.Builder#intercept(boolean)}).
      *
      * @param column a categorical column of the table
      * @param referenceLevel one of the column's levels

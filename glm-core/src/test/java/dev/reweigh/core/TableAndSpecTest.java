@@ -84,15 +84,18 @@ class TableAndSpecTest {
                 .interaction("age", "power").term(Term.interaction(Term.factor("region"), Term.factor("fuel", "d")))
                 .polynomial("age", 2, true).intercept(false).build();
         FittedModel fit = Glm.fit(spec, t);
-        // region reference: N (most rows)
-        assertEquals(List.of("region=E", "region=S", "region=E & age", "region=S & age", "age & power",
+        // no intercept: the first factor has a column for every level; inside the interactions
+        // region keeps its reference N (most rows)
+        assertEquals(List.of("region=E", "region=N", "region=S", "region=E & age", "region=S & age", "age & power",
                 "region=E & fuel=p", "region=S & fuel=p", "age[1]", "age[2]"), fit.columnNames());
         double[] row = new double[fit.columnCount()];
         fit.modelMatrixRow(1, row); // S, age 30, power 2, fuel p
-        assertEquals(1.0, row[1]);
-        assertEquals(30.0, row[3]);
-        assertEquals(60.0, row[4]);
-        assertEquals(1.0, row[6]);
-        assertEquals(0.0, row[5]);
+        assertEquals(0.0, row[0]);
+        assertEquals(0.0, row[1]);
+        assertEquals(1.0, row[2]);
+        assertEquals(30.0, row[4]);
+        assertEquals(60.0, row[5]);
+        assertEquals(1.0, row[7]);
+        assertEquals(0.0, row[6]);
     }
 }
