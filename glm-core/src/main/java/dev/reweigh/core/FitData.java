@@ -4,7 +4,7 @@ import dev.reweigh.families.Family;
 import dev.reweigh.families.InvalidDataException;
 import dev.reweigh.families.UnknownNameException;
 
-import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 
@@ -44,30 +44,46 @@ final class FitData {
         if (t.rowCount() == 0) {
             throw new ModelSpecException("the table has no rows to fit");
         }
-        // rows with missing values
-        List<Integer> keep = new ArrayList<>();
-        for (int r = 0; r < t.rowCount(); r++) {
-            String missing = null;
-            for (String c : used) {
-                boolean isMissing = t.isNumeric(c) ? Double.isNaN(t.numericView(c)[r]) : t.categorical(c).codes[r] < 0;
+        // rows with missing values; each column is looked up once, not once per cell
+        int u = used.size();
+        double[][] numericCols = new double[u][];
+        int[][] codeCols = new int[u][];
+        for (int j = 0; j < u; j++) {
+            String c = used.get(j);
+            if (t.isNumeric(c)) {
+                numericCols[j] = t.numericView(c);
+            } else {
+                codeCols[j] = t.categorical(c).codes;
+            }
+        }
+        int rowCount = t.rowCount();
+        int[] rows = new int[rowCount];
+        int n = 0;
+        for (int r = 0; r < rowCount; r++) {
+            int missing = -1;
+            for (int j = 0; j < u; j++) {
+                double[] num = numericCols[j];
+                boolean isMissing = num != null ? Double.isNaN(num[r]) : codeCols[j][r] < 0;
                 if (isMissing) {
-                    missing = c;
+                    missing = j;
                     break;
                 }
             }
-            if (missing == null) {
-                keep.add(r);
+            if (missing < 0) {
+                rows[n++] = r;
             } else if (!spec.dropsIncompleteRows()) {
-                throw new InvalidDataException(missing, r, t.isNumeric(missing) ? "NaN" : "null (missing)",
+                throw new InvalidDataException(used.get(missing), r,
+                        numericCols[missing] != null ? "NaN" : "null (missing)",
                         "a value: missing values are not allowed unless the specification drops incomplete rows");
             }
         }
-        if (keep.isEmpty()) {
+        if (n == 0) {
             throw new ModelSpecException("no complete rows are left to fit: every one of the " + t.rowCount()
                     + " rows has a missing value in one of the columns " + used);
         }
-        int n = keep.size();
-        int[] rows = keep.stream().mapToInt(Integer::intValue).toArray();
+        if (n < rowCount) {
+            rows = Arrays.copyOf(rows, n);
+        }
         double[] w = new double[n];
         double[] off = new double[n];
         double[] y = new double[n];
