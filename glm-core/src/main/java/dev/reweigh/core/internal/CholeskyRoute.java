@@ -171,19 +171,25 @@ final class CholeskyRoute implements WlsRoute {
     }
 
     @Override
-    public double[][] covariance(double[] w) {
+    public double[][] covariance(double[] w, double[] scratch) {
         decidedW = null;
         decidedZ = null;
-        accumulator.accumulate(x, w, new double[x.rows()], gram, xtwz);
-        double[][] cov = new double[p][p];
-        for (double[] row : cov) {
-            Arrays.fill(row, Double.NaN);
-        }
+        // X'WX alone is needed: a zero working response (X'Wz is not used)
+        Arrays.fill(scratch, 0.0);
+        accumulator.accumulate(x, w, scratch, gram, xtwz);
         if (!factor(excluded, false)) {
-            return cov;
+            double[][] unavailable = new double[p][p];
+            for (double[] row : unavailable) {
+                Arrays.fill(row, Double.NaN);
+            }
+            return unavailable;
         }
         if (large != null) {
             return large.inverse(excluded);
+        }
+        double[][] cov = new double[p][p];
+        for (double[] row : cov) {
+            Arrays.fill(row, Double.NaN);
         }
         // inverse of L (lower), then S^-1 = L^-T L^-1
         double[] linv = new double[p * p];

@@ -95,7 +95,10 @@ public final class Irls {
             }
         }
         double dev = deviance(mu);
-        double[] anchor = anchor();
+        // the trial arrays double as scratch for the anchor, so no n-sized array is allocated twice
+        double[] etaNew = new double[n];
+        double[] muNew = new double[n];
+        double[] anchor = anchor(etaNew, muNew);
 
         Solver solver = options.solver();
         boolean accurate = solver == Solver.PIVOTED_QR || (solver == Solver.AUTO && qrPreferred());
@@ -104,15 +107,14 @@ public final class Irls {
         double[] w = new double[n];
         double[] z = new double[n];
         double[] betaNew = new double[p];
-        double[] etaNew = new double[n];
-        double[] muNew = new double[n];
         boolean converged = false;
         boolean identityShortcut = isIdentity(link);
         // Fisher scoring converges only linearly for non-canonical links, very slowly when the data
         // are dispersed; Newton steps with the observed information converge quadratically.
         boolean observedInformation = !isCanonical(family, link);
-        double[] wObs = new double[n];
-        double[] zObs = new double[n];
+        // only non-canonical links take Newton steps, so only they need the observed working values
+        double[] wObs = observedInformation ? new double[n] : null;
+        double[] zObs = observedInformation ? new double[n] : null;
         CholeskyRoute newtonRoute = null;
         int iter = 0;
         while (iter < options.maxIterations()) {
@@ -266,7 +268,12 @@ public final class Irls {
                 beta2[j] = 0.0;
             }
         }
-        double[] etaLow = new double[n];
+        // the trial arrays are free now: one holds the low-order part of eta, the other is scratch
+        double[] etaLow = etaNew;
+        double[] scratch = muNew;
+        wObs = null;
+        zObs = null;
+        newtonRoute = null;
         pr.x.multiply(beta2, pr.offset, eta, etaLow);
         if (!means(eta, mu)) {
             throw new ReweighException("the final coefficients give a mean outside the domain of the " + family.name()
@@ -274,7 +281,7 @@ public final class Irls {
         }
         dev = identityShortcut && "gaussian".equals(family.name()) ? gaussianDeviance(eta, etaLow) : deviance(mu);
         workingValues(eta, mu, w, z, identityShortcut);
-        double[][] cov = route.covariance(w);
+        double[][] cov = route.covariance(w, scratch);
         boolean[] aliased = new boolean[p];
         for (int j = 0; j < p; j++) {
             aliased[j] = excluded[j] && pr.candidates[j];
@@ -299,9 +306,10 @@ public final class Irls {
 
     /**
      * Coefficients of the intercept-only model at the weighted mean response, when the design has
-     * an all-ones column and those coefficients give valid means everywhere; else null.
+     * an all-ones column and those coefficients give valid means everywhere; else null. The two
+     * n-sized arrays are scratch.
      */
-    private double[] anchor() {
+    private double[] anchor(double[] e, double[] m) {
         int one = -1;
         int d = pr.x.denseWidth();
         double[] dense = pr.x.dense();
@@ -327,15 +335,14 @@ public final class Irls {
             sw += pr.priorWeights[i];
             swy += pr.priorWeights[i] * pr.y[i];
         }
-        double m = swy / sw;
-        if (!pr.family.isValidMean(m) || !pr.link.isValidEta(pr.link.apply(m))) {
+        double mean = swy / sw;
+        if (!pr.family.isValidMean(mean) || !pr.link.isValidEta(pr.link.apply(mean))) {
             return null;
         }
         double[] b = new double[p];
-        b[one] = pr.link.apply(m);
-        double[] e = new double[n];
+        b[one] = pr.link.apply(mean);
         pr.x.multiply(b, pr.offset, e);
-        return means(e, new double[n]) ? b : null;
+        return means(e, m) ? b : null;
     }
 
     private WlsRoute switchToQr(boolean[] excluded) {

@@ -399,7 +399,7 @@ final class QrRoute implements WlsRoute {
     }
 
     @Override
-    public double[][] covariance(double[] w) {
+    public double[][] covariance(double[] w, double[] scratch) {
         double[][] cov = new double[p][p];
         for (double[] row : cov) {
             Arrays.fill(row, Double.NaN);

@@ -35,9 +35,10 @@ interface WlsRoute {
      * excluded columns.
      *
      * @param w the working weights at convergence
+     * @param scratch an array of n entries the route may overwrite (it saves an allocation)
      * @return the unscaled covariance
      */
-    double[][] covariance(double[] w);
+    double[][] covariance(double[] w, double[] scratch);
 
     /**
      * Returns a condition estimate of the last solved step (ratio of the extreme pivots of the
