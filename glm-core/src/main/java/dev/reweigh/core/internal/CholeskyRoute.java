@@ -20,6 +20,7 @@ final class CholeskyRoute implements WlsRoute {
     private final int p;
     private final double[] gram;
     private final double[] xtwz;
+    /** The factor of the small-p route; null above {@link #LARGE_P}, where {@link #large} holds its own. */
     private final double[] chol;
     private final double[] scale;
     private boolean[] excluded;
@@ -38,9 +39,9 @@ final class CholeskyRoute implements WlsRoute {
         this.p = x.columns();
         this.gram = new double[p * p];
         this.xtwz = new double[p];
-        this.chol = new double[p * p];
         this.scale = new double[p];
         this.large = p > LARGE_P ? new dev.reweigh.core.internal.wls.NormalEquations(p, this.rankTolerance) : null;
+        this.chol = large == null ? new double[p * p] : null;
     }
 
     @Override

@@ -105,16 +105,19 @@ public final class Irls {
         WlsRoute route = newRoute(accurate);
         boolean[] excluded = null;
         double[] w = new double[n];
-        double[] z = new double[n];
+        // the working response is consumed by the solve before the trial linear predictor is formed,
+        // so the two share one array
+        double[] z = etaNew;
         double[] betaNew = new double[p];
         boolean converged = false;
         boolean identityShortcut = isIdentity(link);
         // Fisher scoring converges only linearly for non-canonical links, very slowly when the data
         // are dispersed; Newton steps with the observed information converge quadratically.
         boolean observedInformation = !isCanonical(family, link);
-        // only non-canonical links take Newton steps, so only they need the observed working values
-        double[] wObs = observedInformation ? new double[n] : null;
-        double[] zObs = observedInformation ? new double[n] : null;
+        // the observed working values are consumed by the Newton solve before the Fisher working
+        // values are formed, so they live in the trial arrays too
+        double[] wObs = muNew;
+        double[] zObs = etaNew;
         CholeskyRoute newtonRoute = null;
         int iter = 0;
         while (iter < options.maxIterations()) {
@@ -268,11 +271,10 @@ public final class Irls {
                 beta2[j] = 0.0;
             }
         }
-        // the trial arrays are free now: one holds the low-order part of eta, the other is scratch
+        // the trial arrays are free now: one holds the low-order part of eta (and then the unused
+        // final working response), the other is scratch for the covariance
         double[] etaLow = etaNew;
         double[] scratch = muNew;
-        wObs = null;
-        zObs = null;
         newtonRoute = null;
         pr.x.multiply(beta2, pr.offset, eta, etaLow);
         if (!means(eta, mu)) {
