@@ -1,6 +1,7 @@
 package dev.reweigh.core;
 
 import dev.reweigh.core.internal.DesignMatrix;
+import dev.reweigh.core.internal.NumberText;
 import dev.reweigh.families.InvalidDataException;
 import dev.reweigh.families.UnknownNameException;
 
@@ -270,7 +271,7 @@ final class DesignRecipe {
 
     static double finite(String column, int row, double v) {
         if (!Double.isFinite(v)) {
-            throw new InvalidDataException(column, row, Double.toString(v), "a finite number");
+            throw new InvalidDataException(column, row, NumberText.of(v), "a finite number");
         }
         return v;
     }

@@ -1,5 +1,6 @@
 package dev.reweigh.core;
 
+import dev.reweigh.core.internal.NumberText;
 import dev.reweigh.families.Family;
 import dev.reweigh.families.InvalidDataException;
 import dev.reweigh.families.UnknownNameException;
@@ -100,7 +101,7 @@ final class FitData {
             if (wcol != null) {
                 wi = wcol[r];
                 if (!(wi >= 0) || Double.isInfinite(wi)) {
-                    throw new InvalidDataException(spec.weights().get(), r, Double.toString(wi),
+                    throw new InvalidDataException(spec.weights().get(), r, NumberText.of(wi),
                             "a non-negative finite weight");
                 }
             }
@@ -110,28 +111,28 @@ final class FitData {
             if (ecol != null) {
                 double e = ecol[r];
                 if (!(e > 0) || Double.isInfinite(e)) {
-                    throw new InvalidDataException(spec.logOffset().get(), r, Double.toString(e),
+                    throw new InvalidDataException(spec.logOffset().get(), r, NumberText.of(e),
                             "a positive finite exposure (its logarithm enters the linear predictor)");
                 }
                 off[i] += Math.log(e);
             }
             double yi = resp[r];
             if (!Double.isFinite(yi)) {
-                throw new InvalidDataException(spec.response(), r, Double.toString(yi), family.responseDomain());
+                throw new InvalidDataException(spec.response(), r, NumberText.of(yi), family.responseDomain());
             }
             if (tcol != null) {
                 double ti = tcol[r];
                 String tc = spec.trials().get();
                 if (!(ti >= 0) || Double.isInfinite(ti) || ti != Math.rint(ti)) {
-                    throw new InvalidDataException(tc, r, Double.toString(ti), "a non-negative whole number of trials");
+                    throw new InvalidDataException(tc, r, NumberText.of(ti), "a non-negative whole number of trials");
                 }
                 if (!(yi >= 0) || yi != Math.rint(yi)) {
-                    throw new InvalidDataException(spec.response(), r, Double.toString(yi),
+                    throw new InvalidDataException(spec.response(), r, NumberText.of(yi),
                             "a non-negative whole number of successes");
                 }
                 if (yi > ti) {
-                    throw new InvalidDataException(spec.response(), r, Double.toString(yi),
-                            String.format(Locale.ROOT, "at most the %s trials in column '%s'", fmt(ti), tc));
+                    throw new InvalidDataException(spec.response(), r, NumberText.of(yi),
+                            String.format(Locale.ROOT, "at most the %s trials in column '%s'", NumberText.of(ti), tc));
                 }
                 y[i] = ti == 0 ? 0.0 : yi / ti;
                 wi *= ti;
@@ -142,7 +143,7 @@ final class FitData {
             if (wi > 0) {
                 positive++;
                 if (!family.isValidResponse(y[i], wi)) {
-                    throw new InvalidDataException(spec.response(), r, Double.toString(yi),
+                    throw new InvalidDataException(spec.response(), r, NumberText.of(yi),
                             family.responseDomain() + " for the " + family.name() + " family");
                 }
             }
@@ -153,10 +154,6 @@ final class FitData {
                     "at least one row with a positive prior weight");
         }
         return new FitData(rows, t.rowCount() - n, y, w, off, positive);
-    }
-
-    private static String fmt(double v) {
-        return v == Math.rint(v) && Math.abs(v) < 1e15 ? Long.toString((long) v) : Double.toString(v);
     }
 
     private static void numericRole(Table t, String column, String role) {

@@ -2,6 +2,7 @@ package dev.reweigh.core;
 
 import dev.reweigh.core.internal.DesignMatrix;
 import dev.reweigh.core.internal.IrlsResult;
+import dev.reweigh.core.internal.NumberText;
 import dev.reweigh.families.Family;
 import dev.reweigh.families.InvalidDataException;
 import dev.reweigh.families.Link;
@@ -526,7 +527,7 @@ public final class FittedModel {
             double[] v = column(newData, c);
             for (int i = 0; i < n; i++) {
                 if (!(v[i] > 0) || Double.isInfinite(v[i])) {
-                    throw new InvalidDataException(c, i, Double.toString(v[i]), "a positive finite exposure");
+                    throw new InvalidDataException(c, i, NumberText.of(v[i]), "a positive finite exposure");
                 }
                 off[i] += Math.log(v[i]);
             }
@@ -557,7 +558,7 @@ public final class FittedModel {
         double[] e = predictLink(newData);
         for (int i = 0; i < e.length; i++) {
             if (!spec.link().isValidEta(e[i])) {
-                throw new InvalidDataException("linear predictor", i, Double.toString(e[i]), spec.link().etaDomain());
+                throw new InvalidDataException("linear predictor", i, NumberText.of(e[i]), spec.link().etaDomain());
             }
             e[i] = spec.link().inverse(e[i]);
         }

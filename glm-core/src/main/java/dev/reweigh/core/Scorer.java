@@ -1,5 +1,6 @@
 package dev.reweigh.core;
 
+import dev.reweigh.core.internal.NumberText;
 import dev.reweigh.families.Experimental;
 import dev.reweigh.families.Family;
 import dev.reweigh.families.InvalidDataException;
@@ -454,7 +455,7 @@ public final class Scorer {
 
     private double mean(double eta, int row) {
         if (!model.link.isValidEta(eta)) {
-            throw new InvalidDataException("linear predictor", row, Double.toString(eta), model.link.etaDomain());
+            throw new InvalidDataException("linear predictor", row, NumberText.of(eta), model.link.etaDomain());
         }
         return model.link.inverse(eta);
     }

@@ -1,5 +1,6 @@
 package dev.reweigh.core;
 
+import dev.reweigh.core.internal.NumberText;
 import dev.reweigh.families.InvalidDataException;
 import dev.reweigh.families.UnknownNameException;
 
@@ -32,7 +33,7 @@ final class ScoringInputs {
         final double checked(int input, int row, double v) {
             boolean ok = input == design.logOffsetInput ? v > 0 && v < Double.POSITIVE_INFINITY : Double.isFinite(v);
             if (!ok) {
-                throw new InvalidDataException(design.inputNames.get(input), row, Double.toString(v),
+                throw new InvalidDataException(design.inputNames.get(input), row, NumberText.of(v),
                         input == design.logOffsetInput ? "a positive finite exposure (its logarithm enters the"
                                 + " linear predictor)" : "a finite number");
             }

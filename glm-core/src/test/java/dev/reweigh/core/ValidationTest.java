@@ -33,10 +33,10 @@ class ValidationTest {
                 ModelSpec.builder("y").family(Families.poisson()).numeric("x").build(), table(new double[] {1, 2, -1, 0}, X)));
         assertEquals("y", e.column());
         assertEquals(2, e.row());
-        assertMentions(e, "'y'", "row 2", "-1.0", "poisson");
+        assertMentions(e, "'y'", "row 2", "value -1 ", "poisson");
         InvalidDataException g = assertThrows(InvalidDataException.class, () -> Glm.fit(
                 ModelSpec.builder("y").family(Families.gamma()).numeric("x").build(), table(new double[] {1, 0, 2, 3}, X)));
-        assertMentions(g, "'y'", "row 1", "0.0");
+        assertMentions(g, "'y'", "row 1", "value 0 ");
     }
 
     @Test
@@ -55,7 +55,7 @@ class ValidationTest {
         assertMentions(assertThrows(InvalidDataException.class, () -> Glm.fit(
                 ModelSpec.builder("y").numeric("x").offset("off").build(), withCols)), "'off'", "row 1");
         assertMentions(assertThrows(InvalidDataException.class, () -> Glm.fit(
-                ModelSpec.builder("y").numeric("x").weights("w").build(), withCols)), "'w'", "row 2", "-2.0", "non-negative");
+                ModelSpec.builder("y").numeric("x").weights("w").build(), withCols)), "'w'", "row 2", "value -2 ", "non-negative");
         assertMentions(assertThrows(InvalidDataException.class, () -> Glm.fit(
                 ModelSpec.builder("y").numeric("x").weights("zero").build(), withCols)), "'zero'", "positive");
         assertMentions(assertThrows(InvalidDataException.class, () -> Glm.fit(
@@ -68,7 +68,7 @@ class ValidationTest {
         Table t = Table.builder().numeric("k", 1, 5, 2).numeric("n", 3, 4, 2).numeric("x", 1, 2, 3).build();
         InvalidDataException e = assertThrows(InvalidDataException.class, () -> Glm.fit(
                 ModelSpec.builder("k").trials("n").family(Families.binomial()).numeric("x").build(), t));
-        assertMentions(e, "'k'", "row 1", "5.0", "at most the 4 trials", "'n'");
+        assertMentions(e, "'k'", "row 1", "value 5 ", "at most the 4 trials", "'n'");
         assertThrows(ModelSpecException.class, () -> ModelSpec.builder("k").trials("n").family(Families.poisson()).build());
     }
 
