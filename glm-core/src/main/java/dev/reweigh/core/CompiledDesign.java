@@ -11,10 +11,12 @@ import java.util.Map;
  * levels resolved through a hash map once per column), the slots each term's parts are evaluated
  * into, and the coefficients. Immutable; every call brings its own {@link Scratch}.
  *
- * <p>The linear predictor is summed exactly as {@code DesignMatrix.multiply} sums it for the fitted
- * model (offset first, then the dense columns in model order, then the factor blocks in model
- * order, each product added with its rounding error in a compensated sum), so scores are
- * bit-identical to {@link FittedModel#predictLink(Table)}.
+ * <p>This is the one place where predictions compute eta: {@link FittedModel#predictLink(Table)}
+ * and {@link FittedModel#predictMean(Table)} score through it as every {@link Scorer} does. It
+ * sums exactly as {@code DesignMatrix.multiply} sums during the fit (offset first, then the dense
+ * columns in model order, then the factor blocks in model order, each product added with its
+ * rounding error in a compensated sum), so predictions on the fitting rows reproduce the fit's
+ * linear predictor to the bit.
  */
 final class CompiledDesign {
 

@@ -2,7 +2,6 @@ package dev.reweigh.core;
 
 import dev.reweigh.core.internal.DesignMatrix;
 import dev.reweigh.core.internal.IrlsResult;
-import dev.reweigh.core.internal.NumberText;
 import dev.reweigh.families.Family;
 import dev.reweigh.families.InvalidDataException;
 import dev.reweigh.families.Link;
@@ -54,6 +53,7 @@ public final class FittedModel {
     private final boolean converged;
     private final List<String> warnings;
     private final String route;
+    private volatile Scorer predictor; // compiled on first prediction; immutable, so a race only repeats work
 
     FittedModel(ModelSpec spec, Table data, FitOptions options, DesignRecipe recipe, DesignMatrix design,
             double[] beta, boolean[] aliased, Map<Integer, Double> fixed, double[][] covariance, FitData fd,
@@ -503,45 +503,23 @@ public final class FittedModel {
 
     /**
      * Predicts the linear predictor for new data, including the offset and log-offset columns
-     * when the specification has them (the new table must then have them too).
+     * when the specification has them (the new table must then have them too). It is computed by
+     * the model's compiled scorer, so it is the same to the bit as {@link #scorer()} and a
+     * {@link ModelArtifact}'s scorer give.
      *
      * @param newData a table with the columns the model uses
      * @return one value per row of newData
-     * @throws UnknownNameException when a column is missing or a level was not seen in the fit
+     * @throws UnknownNameException when a column is missing, or a level was not seen in the fit
+     *     ({@link UnseenLevelException}, naming column, row and level)
      * @throws InvalidDataException when a value is missing or invalid
+     * @throws ModelSpecException when a column is of the wrong kind (numeric for a factor or the
+     *     other way round)
      * @since 0.1
      */
     public double[] predictLink(Table newData) {
-        DesignMatrix x = newDesign(newData);
-        int n = newData.rowCount();
-        double[] off = new double[n];
-        if (spec.offset().isPresent()) {
-            String c = spec.offset().get();
-            double[] v = column(newData, c);
-            for (int i = 0; i < n; i++) {
-                off[i] = DesignRecipe.finite(c, i, v[i]);
-            }
-        }
-        if (spec.logOffset().isPresent()) {
-            String c = spec.logOffset().get();
-            double[] v = column(newData, c);
-            for (int i = 0; i < n; i++) {
-                if (!(v[i] > 0) || Double.isInfinite(v[i])) {
-                    throw new InvalidDataException(c, i, NumberText.of(v[i]), "a positive finite exposure");
-                }
-                off[i] += Math.log(v[i]);
-            }
-        }
-        double[] out = new double[n];
-        x.multiply(beta, off, out);
+        double[] out = new double[newData.rowCount()];
+        predictor().scoreLink(newData, out);
         return out;
-    }
-
-    private static double[] column(Table t, String c) {
-        if (!t.hasColumn(c)) {
-            throw new UnknownNameException("column", c, t.columnNames());
-        }
-        return t.numericViewChecked(c);
     }
 
     /**
@@ -549,20 +527,28 @@ public final class FittedModel {
      *
      * @param newData a table with the columns the model uses
      * @return one value per row of newData
-     * @throws UnknownNameException when a column is missing or a level was not seen in the fit
+     * @throws UnknownNameException when a column is missing, or a level was not seen in the fit
+     *     ({@link UnseenLevelException}, naming column, row and level)
      * @throws InvalidDataException when a value is missing or the linear predictor leaves the
      *     link's domain
+     * @throws ModelSpecException when a column is of the wrong kind
      * @since 0.1
      */
     public double[] predictMean(Table newData) {
-        double[] e = predictLink(newData);
-        for (int i = 0; i < e.length; i++) {
-            if (!spec.link().isValidEta(e[i])) {
-                throw new InvalidDataException("linear predictor", i, NumberText.of(e[i]), spec.link().etaDomain());
-            }
-            e[i] = spec.link().inverse(e[i]);
+        double[] out = new double[newData.rowCount()];
+        predictor().scoreMean(newData, out);
+        return out;
+    }
+
+    // one code path for eta: predictions go through the scorer, which artifacts share
+    private Scorer predictor() {
+        Scorer s = predictor;
+        if (s == null) {
+            // no intervals, so no dispersion is needed (and none is computed)
+            s = new Scorer.Builder(ScoringModel.of(this, Double.NaN)).build();
+            predictor = s;
         }
-        return e;
+        return s;
     }
 
     /**
