@@ -178,6 +178,7 @@ final class CholeskyRoute implements WlsRoute {
         // X'WX alone is needed: a zero working response (X'Wz is not used)
         Arrays.fill(scratch, 0.0);
         accumulator.accumulate(x, w, scratch, gram, xtwz);
+        scratch = null; // not held while the inverse is formed
         if (!factor(excluded, false)) {
             double[][] unavailable = new double[p][p];
             for (double[] row : unavailable) {

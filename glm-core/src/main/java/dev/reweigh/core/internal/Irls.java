@@ -41,6 +41,8 @@ public final class Irls {
     private final int n;
     private final int p;
     private final double[] columnRms;
+    /** Hands one n-sized array to the covariance without a local of {@link #run} keeping it alive. */
+    private double[] spare;
 
     private Irls(IrlsProblem problem, FitOptions options) {
         this.pr = problem;
@@ -274,7 +276,6 @@ public final class Irls {
         // the trial arrays are free now: one holds the low-order part of eta (and then the unused
         // final working response), the other is scratch for the covariance
         double[] etaLow = etaNew;
-        double[] scratch = muNew;
         newtonRoute = null;
         pr.x.multiply(beta2, pr.offset, eta, etaLow);
         if (!means(eta, mu)) {
@@ -283,7 +284,15 @@ public final class Irls {
         }
         dev = identityShortcut && "gaussian".equals(family.name()) ? gaussianDeviance(eta, etaLow) : deviance(mu);
         workingValues(eta, mu, w, z, identityShortcut);
-        double[][] cov = route.covariance(w, scratch);
+        // no local keeps the trial arrays alive while the p x p inverse is formed
+        spare = muNew;
+        etaNew = null;
+        muNew = null;
+        z = null;
+        wObs = null;
+        zObs = null;
+        etaLow = null;
+        double[][] cov = route.covariance(w, takeSpare());
         boolean[] aliased = new boolean[p];
         for (int j = 0; j < p; j++) {
             aliased[j] = excluded[j] && pr.candidates[j];
@@ -345,6 +354,12 @@ public final class Irls {
         b[one] = pr.link.apply(mean);
         pr.x.multiply(b, pr.offset, e);
         return means(e, m) ? b : null;
+    }
+
+    private double[] takeSpare() {
+        double[] s = spare;
+        spare = null;
+        return s;
     }
 
     private WlsRoute switchToQr(boolean[] excluded) {
