@@ -62,6 +62,16 @@ class ErrorValueTextTest {
         assertValue(assertThrows(InvalidDataException.class, () -> Glm.fit(FREQUENCY, bad)), "age", 3, "-Infinity");
     }
 
+    @Test
+    void aBadStartingMeanIsReadable() {
+        double[] start = new double[MOTOR.rowCount()];
+        java.util.Arrays.fill(start, 0.5);
+        start[7] = -4;
+        FitOptions options = FitOptions.builder().startMeans(start).build();
+        assertValue(assertThrows(InvalidDataException.class, () -> Glm.fit(FREQUENCY, MOTOR, options)),
+                "start means", 7, "-4");
+    }
+
     static String[] levels(Table t) {
         String[] out = new String[t.rowCount()];
         for (int i = 0; i < out.length; i++) {

@@ -443,7 +443,7 @@ public final class Irls {
             pr.x.multiply(b, pr.offset, eta);
             for (int i = 0; i < n; i++) {
                 if (!pr.link.isValidEta(eta[i]) || !pr.family.isValidMean(pr.link.inverse(eta[i]))) {
-                    throw new InvalidDataException("start coefficients", i, Double.toString(eta[i]),
+                    throw new InvalidDataException("start coefficients", i, NumberText.of(eta[i]),
                             "coefficients giving a linear predictor that is " + pr.link.etaDomain()
                                     + " and a mean that is " + pr.family.meanDomain());
                 }
@@ -457,7 +457,7 @@ public final class Irls {
             }
             for (int i = 0; i < n; i++) {
                 if (!pr.family.isValidMean(m[i]) || !pr.link.isValidEta(pr.link.apply(m[i]))) {
-                    throw new InvalidDataException("start means", i, Double.toString(m[i]), pr.family.meanDomain());
+                    throw new InvalidDataException("start means", i, NumberText.of(m[i]), pr.family.meanDomain());
                 }
                 mu[i] = m[i];
                 eta[i] = pr.link.apply(m[i]);
