@@ -21,7 +21,7 @@ public final class NormalEquations {
     private final int p;
     private final double tolerance;
     private final double[] scale;
-    private final double[] u;     // upper factor, row-major p x p (entries below the diagonal unused)
+    private final double[] u;     // upper factor, row-major p x p (strictly lower part: scratch for the inverse)
     private final double[] work;
 
     /**
@@ -219,16 +219,20 @@ public final class NormalEquations {
             }
             v[rj + j] = inv;
         }
-        // (U'U)^-1 = V V': row a is the sum over k >= a of V[a][k] times column k of V, taken as
-        // row k of the transpose T so that the inner loop is an axpy over contiguous memory
-        double[] t = new double[p * p];
-        for (int m = 0; m < p; m++) {
-            for (int k = m; k < p; k++) {
-                t[k * p + m] = v[m * p + k];
+        // (U'U)^-1 = V V': row a is the sum over k >= a of V[a][k] times column k of V. Column k of V
+        // is stored as row k of its transpose in the strictly lower triangle of u (unused by the
+        // factor), so that the inner loop is an axpy over contiguous memory without another p x p
+        // array; the diagonal V[k][k] is taken from V itself.
+        for (int k = 0; k < p; k++) {
+            int rk = k * p;
+            for (int m = 0; m < k; m++) {
+                u[rk + m] = v[m * p + k];
             }
         }
-        double[] c = new double[p * p];
+        double[][] cov = new double[p][];
         for (int a = 0; a < p; a++) {
+            double[] row = new double[p];
+            cov[a] = row;
             if (excluded[a]) {
                 continue;
             }
@@ -239,24 +243,16 @@ public final class NormalEquations {
                     continue;
                 }
                 int rk = k * p;
-                for (int m = 0; m <= k; m++) {
-                    c[ra + m] = Math.fma(f, t[rk + m], c[ra + m]);
+                for (int m = 0; m < k; m++) {
+                    row[m] = Math.fma(f, u[rk + m], row[m]);
                 }
+                row[k] = Math.fma(f, v[rk + k], row[k]);
             }
         }
-        double[][] cov = new double[p][p];
+        // scale, mirror the upper triangle in place, and mark excluded columns
         for (int a = 0; a < p; a++) {
-            Arrays.fill(cov[a], Double.NaN);
-        }
-        for (int a = 0; a < p; a++) {
-            if (excluded[a]) {
-                continue;
-            }
             for (int b = a; b < p; b++) {
-                if (excluded[b]) {
-                    continue;
-                }
-                double val = c[a * p + b] * scale[a] * scale[b];
+                double val = excluded[a] || excluded[b] ? Double.NaN : cov[a][b] * scale[a] * scale[b];
                 cov[a][b] = val;
                 cov[b][a] = val;
             }
