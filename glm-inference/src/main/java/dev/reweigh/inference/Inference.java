@@ -38,7 +38,11 @@ import java.util.Objects;
  * @since 0.1
  */
 public final class Inference {
-    /** The confidence level used unless {@link #withLevel(double)} chooses another. */
+    /**
+     * The confidence level used unless {@link #withLevel(double)} chooses another.
+     *
+     * @since 0.1
+     */
     public static final double DEFAULT_LEVEL = 0.95;
 
     private final FittedModel fit;

@@ -28,7 +28,11 @@ import java.util.SplittableRandom;
  * @since 0.1
  */
 public final class Residuals {
-    /** The seed used unless {@link #withSeed(long)} chooses another. */
+    /**
+     * The seed used unless {@link #withSeed(long)} chooses another.
+     *
+     * @since 0.1
+     */
     public static final long DEFAULT_SEED = 20_260_101L;
 
     private final ModelData data;
