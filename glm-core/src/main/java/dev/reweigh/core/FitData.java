@@ -45,36 +45,39 @@ final class FitData {
         if (t.rowCount() == 0) {
             throw new ModelSpecException("the table has no rows to fit");
         }
-        // rows with missing values; each column is looked up once, not once per cell
+        // per row, the first used column (in model order) with a missing value, or -1; scanned column
+        // by column, so each column is looked up once and read as one sequential stream
         int u = used.size();
-        double[][] numericCols = new double[u][];
-        int[][] codeCols = new int[u][];
+        int rowCount = t.rowCount();
+        int[] rows = new int[rowCount];
+        Arrays.fill(rows, -1);
         for (int j = 0; j < u; j++) {
             String c = used.get(j);
             if (t.isNumeric(c)) {
-                numericCols[j] = t.numericView(c);
+                double[] col = t.numericView(c);
+                for (int r = 0; r < rowCount; r++) {
+                    if (Double.isNaN(col[r]) && rows[r] < 0) {
+                        rows[r] = j;
+                    }
+                }
             } else {
-                codeCols[j] = t.categorical(c).codes;
-            }
-        }
-        int rowCount = t.rowCount();
-        int[] rows = new int[rowCount];
-        int n = 0;
-        for (int r = 0; r < rowCount; r++) {
-            int missing = -1;
-            for (int j = 0; j < u; j++) {
-                double[] num = numericCols[j];
-                boolean isMissing = num != null ? Double.isNaN(num[r]) : codeCols[j][r] < 0;
-                if (isMissing) {
-                    missing = j;
-                    break;
+                int[] codes = t.categorical(c).codes;
+                for (int r = 0; r < rowCount; r++) {
+                    if (codes[r] < 0 && rows[r] < 0) {
+                        rows[r] = j;
+                    }
                 }
             }
+        }
+        // compact in place to the complete rows (the write position never passes the read position)
+        int n = 0;
+        for (int r = 0; r < rowCount; r++) {
+            int missing = rows[r];
             if (missing < 0) {
                 rows[n++] = r;
             } else if (!spec.dropsIncompleteRows()) {
-                throw new InvalidDataException(used.get(missing), r,
-                        numericCols[missing] != null ? "NaN" : "null (missing)",
+                String c = used.get(missing);
+                throw new InvalidDataException(c, r, t.isNumeric(c) ? "NaN" : "null (missing)",
                         "a value: missing values are not allowed unless the specification drops incomplete rows");
             }
         }
