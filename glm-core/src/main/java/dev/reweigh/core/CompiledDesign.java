@@ -123,6 +123,7 @@ final class CompiledDesign {
     private final boolean anyLow;
     private final boolean intercept;
     private final double[] b;
+    private final PlainDesign plain;
 
     CompiledDesign(boolean intercept, List<ScoringTerm> terms, double[] beta, String offset, String logOffset) {
         Layout layout = new Layout();
@@ -133,8 +134,10 @@ final class CompiledDesign {
         List<Integer> ff = new ArrayList<>();
         List<Boolean> fm = new ArrayList<>();
         boolean low = false;
+        boolean simple = true;
         int col = intercept ? 1 : 0;
         for (ScoringTerm t : terms) {
+            simple &= t instanceof ScoringTerm.Numeric || t instanceof ScoringTerm.Factor;
             ns.add(t.compile(layout));
             int first = layout.lastFirstSlot();
             for (int k = 0; k < t.partCount(); k++) {
@@ -186,6 +189,28 @@ final class CompiledDesign {
         for (int j = 0; j < col; j++) {
             b[j] = Double.isNaN(beta[j]) ? 0.0 : beta[j];
         }
+        this.plain = simple && !low ? new PlainDesign(this, terms) : null;
+    }
+
+    /** The block scorer for designs of plain numbers and factors only, else null. */
+    PlainDesign plain() {
+        return plain;
+    }
+
+    int[] denseColumns() {
+        return denseColumn;
+    }
+
+    int[] factorFirstColumns() {
+        return factorFirst;
+    }
+
+    boolean hasIntercept() {
+        return intercept;
+    }
+
+    double[] coefficients() {
+        return b;
     }
 
     Scratch newScratch() {

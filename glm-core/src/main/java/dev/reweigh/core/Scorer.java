@@ -425,30 +425,75 @@ public final class Scorer {
         checkLength("out", link, n);
         checkLength("out", mean, n);
         checkLength("usedReference", flags, n);
+        PlainDesign plain = design.plain();
+        if (plain != null && iv == null && in instanceof ScoringInputs.TableBinding) {
+            runPlain(plain, (ScoringInputs.TableBinding) in, n, link, mean, flags);
+            return;
+        }
         CompiledDesign.Scratch s = design.newScratch();
         for (int i = 0; i < n; i++) {
-            in.usedReference = false;
-            double eta = design.eta(in, i, s);
-            if (link != null) {
-                link[i] = eta;
-            }
-            if (flags != null) {
-                flags[i] = in.usedReference;
-            }
-            if (mean != null) {
-                double mu = mean(eta, i);
-                mean[i] = mu;
-                if (iv != null) {
-                    // the interval is built on the link scale and mapped through the inverse link, so
-                    // it stays in the family's range (a decreasing link swaps the ends)
-                    double seEta = Math.sqrt(Math.max(design.quadraticForm(s, scaledCovariance), 0.0));
-                    double a = model.link.inverse(eta - z * seEta);
-                    double b = model.link.inverse(eta + z * seEta);
-                    iv.linkSe[i] = seEta;
-                    iv.meanSe[i] = Math.abs(model.link.derivative(eta)) * seEta;
-                    iv.lower[i] = Math.min(a, b);
-                    iv.upper[i] = Math.max(a, b);
+            scoreRow(in, i, s, link, mean, iv, flags);
+        }
+    }
+
+    /** Table rows of a plain design a block at a time; a block with a bad cell goes row by row. */
+    private void runPlain(PlainDesign plain, ScoringInputs.TableBinding in, int n, double[] link, double[] mean,
+            boolean[] flags) {
+        PlainDesign.Columns cols = plain.bind(in);
+        double[] eta = cols.sum;
+        CompiledDesign.Scratch s = null;
+        for (int from = 0; from < n; from += PlainDesign.BLOCK) {
+            int len = Math.min(PlainDesign.BLOCK, n - from);
+            if (!plain.eta(cols, from, len)) {
+                if (s == null) {
+                    s = design.newScratch();
                 }
+                for (int i = from; i < from + len; i++) {
+                    scoreRow(in, i, s, link, mean, null, flags);
+                }
+                continue;
+            }
+            if (mean == null) {
+                System.arraycopy(eta, 0, link, from, len);
+                continue;
+            }
+            // row by row as scoreRow writes, so a row outside the link's domain leaves the same outputs
+            for (int r = 0; r < len; r++) {
+                int i = from + r;
+                if (link != null) {
+                    link[i] = eta[r];
+                }
+                if (flags != null) {
+                    flags[i] = false;
+                }
+                mean[i] = mean(eta[r], i);
+            }
+        }
+    }
+
+    private void scoreRow(ScoringInputs.Binding in, int i, CompiledDesign.Scratch s, double[] link, double[] mean,
+            Intervals iv, boolean[] flags) {
+        in.usedReference = false;
+        double eta = design.eta(in, i, s);
+        if (link != null) {
+            link[i] = eta;
+        }
+        if (flags != null) {
+            flags[i] = in.usedReference;
+        }
+        if (mean != null) {
+            double mu = mean(eta, i);
+            mean[i] = mu;
+            if (iv != null) {
+                // the interval is built on the link scale and mapped through the inverse link, so
+                // it stays in the family's range (a decreasing link swaps the ends)
+                double seEta = Math.sqrt(Math.max(design.quadraticForm(s, scaledCovariance), 0.0));
+                double a = model.link.inverse(eta - z * seEta);
+                double b = model.link.inverse(eta + z * seEta);
+                iv.linkSe[i] = seEta;
+                iv.meanSe[i] = Math.abs(model.link.derivative(eta)) * seEta;
+                iv.lower[i] = Math.min(a, b);
+                iv.upper[i] = Math.max(a, b);
             }
         }
     }

@@ -63,7 +63,7 @@ final class ScoringInputs {
 
     /** Rows of a table; factor levels mapped once per call from the table's level list. */
     static final class TableBinding extends Binding {
-        private final int[][] levelMap;
+        final int[][] levelMap;
         private final List<String>[] tableLevels;
 
         @SuppressWarnings("unchecked")

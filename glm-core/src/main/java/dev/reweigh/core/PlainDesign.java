@@ -1,0 +1,232 @@
+package dev.reweigh.core;
+
+import java.util.List;
+
+/**
+ * The linear predictor of a design made only of plain numeric and factor terms, for the rows of a
+ * table, computed a block of rows at a time with the term loop outside and the row loop inside.
+ * Each row still sees exactly the operations of {@link CompiledDesign#eta} in the same order
+ * (offset, intercept, dense columns, factor blocks, each in a compensated sum), so the results
+ * are bit-identical; what goes is the per-row dispatch over term nodes and bound inputs.
+ *
+ * <p>The cells of a block are checked before it is scored. A block holding any missing or
+ * invalid value or unseen level is left to the row-by-row path, which reports the first bad cell
+ * (or flags the fallback rows) exactly as always.
+ */
+final class PlainDesign {
+    /** Rows per block: the block's running sums stay in the first-level cache. */
+    static final int BLOCK = 256;
+
+    private final CompiledDesign design;
+    private final int[] denseInput;
+    private final int[] denseColumn;
+    private final int[] factorInput;
+    private final int[] factorRef;
+    private final int[] factorFirst;
+    private final double[] b;
+    private final boolean intercept;
+
+    PlainDesign(CompiledDesign design, List<ScoringTerm> terms) {
+        this.design = design;
+        int dense = 0;
+        int factors = 0;
+        for (ScoringTerm t : terms) {
+            if (t instanceof ScoringTerm.Factor) {
+                factors++;
+            } else {
+                dense++;
+            }
+        }
+        denseInput = new int[dense];
+        factorInput = new int[factors];
+        factorRef = new int[factors];
+        dense = 0;
+        factors = 0;
+        for (ScoringTerm t : terms) {
+            if (t instanceof ScoringTerm.Factor) {
+                ScoringTerm.Factor f = (ScoringTerm.Factor) t;
+                factorInput[factors] = design.inputNames.indexOf(f.column);
+                factorRef[factors++] = f.ref;
+            } else {
+                denseInput[dense++] = design.inputNames.indexOf(((ScoringTerm.Numeric) t).column);
+            }
+        }
+        this.denseColumn = design.denseColumns();
+        this.factorFirst = design.factorFirstColumns();
+        this.b = design.coefficients();
+        this.intercept = design.hasIntercept();
+    }
+
+    /** One call's columns and block storage. */
+    static final class Columns {
+        final double[][] numbers;
+        final double[][] dense;
+        final int[][] codes;
+        final int[][] column;
+        final double[] offset;
+        final double[] logOffset;
+        final double[] sum = new double[BLOCK];
+        final double[] err = new double[BLOCK];
+
+        private Columns(int inputs, int dense, int factors, double[] offset, double[] logOffset) {
+            this.numbers = new double[inputs][];
+            this.dense = new double[dense][];
+            this.codes = new int[factors][];
+            this.column = new int[factors][];
+            this.offset = offset;
+            this.logOffset = logOffset;
+        }
+    }
+
+    /** Resolves the table's columns once: numbers to arrays, table level codes to model columns. */
+    Columns bind(ScoringInputs.TableBinding t) {
+        Object[] cols = t.columns;
+        Columns c = new Columns(cols.length, denseInput.length, factorInput.length,
+                design.offsetInput < 0 ? null : (double[]) cols[design.offsetInput],
+                design.logOffsetInput < 0 ? null : (double[]) cols[design.logOffsetInput]);
+        for (int i = 0; i < cols.length; i++) {
+            if (!design.inputIsFactor[i]) {
+                c.numbers[i] = (double[]) cols[i];
+            }
+        }
+        for (int k = 0; k < denseInput.length; k++) {
+            c.dense[k] = (double[]) cols[denseInput[k]];
+        }
+        for (int k = 0; k < factorInput.length; k++) {
+            int input = factorInput[k];
+            c.codes[k] = (int[]) cols[input];
+            int[] map = t.levelMap[input];
+            int[] out = new int[map.length];
+            int r = factorRef[k];
+            for (int j = 0; j < map.length; j++) {
+                int lv = map[j];
+                if (lv == -2) {
+                    out[j] = -2; // unseen: left to the row-by-row path
+                } else {
+                    // the same mapping as ScoringTerm.Factor's node
+                    int code = r < 0 ? lv : (lv < 0 || lv == r ? -1 : (lv < r ? lv : lv - 1));
+                    out[j] = code < 0 ? -1 : factorFirst[k] + code;
+                }
+            }
+            c.column[k] = out;
+        }
+        return c;
+    }
+
+    /**
+     * Computes the linear predictor of rows from .. from + len - 1 into {@code c.sum[0 .. len)}.
+     *
+     * @return false, having scored nothing, when a cell of these rows is missing or invalid or
+     *     holds an unseen level
+     */
+    boolean eta(Columns c, int from, int len) {
+        if (!valid(c, from, len)) {
+            return false;
+        }
+        double[] sum = c.sum;
+        double[] err = c.err;
+        double[] off = c.offset;
+        double[] logOff = c.logOffset;
+        if (off != null && logOff != null) {
+            for (int r = 0; r < len; r++) {
+                double o = off[from + r];
+                o += Math.log(logOff[from + r]);
+                sum[r] = o;
+            }
+        } else if (off != null) {
+            System.arraycopy(off, from, sum, 0, len);
+        } else if (logOff != null) {
+            for (int r = 0; r < len; r++) {
+                double o = 0.0;
+                o += Math.log(logOff[from + r]);
+                sum[r] = o;
+            }
+        } else {
+            java.util.Arrays.fill(sum, 0, len, 0.0);
+        }
+        java.util.Arrays.fill(err, 0, len, 0.0);
+        if (intercept) {
+            double bk = b[0];
+            double p = bk;   // 1.0 * bk
+            double pe = Math.fma(1.0, bk, -p);
+            for (int r = 0; r < len; r++) {
+                double s = sum[r];
+                double t = s + p;
+                double bb = t - s;
+                err[r] += (s - (t - bb)) + (p - bb) + pe;
+                sum[r] = t;
+            }
+        }
+        for (int k = 0; k < denseInput.length; k++) {
+            double[] x = c.dense[k];
+            double bk = b[denseColumn[k]];
+            for (int r = 0; r < len; r++) {
+                double xv = x[from + r];
+                double p = xv * bk;
+                double pe = Math.fma(xv, bk, -p);
+                double s = sum[r];
+                double t = s + p;
+                double bb = t - s;
+                err[r] += (s - (t - bb)) + (p - bb) + pe;
+                sum[r] = t;
+            }
+        }
+        for (int k = 0; k < factorInput.length; k++) {
+            int[] codes = c.codes[k];
+            int[] column = c.column[k];
+            for (int r = 0; r < len; r++) {
+                int j = column[codes[from + r]];
+                if (j >= 0) {
+                    double v = 1.0;
+                    double bk = b[j];
+                    double p = v * bk;
+                    double pe = Math.fma(v, bk, -p);
+                    double s = sum[r];
+                    double t = s + p;
+                    double bb = t - s;
+                    err[r] += (s - (t - bb)) + (p - bb) + pe;
+                    sum[r] = t;
+                }
+            }
+        }
+        for (int r = 0; r < len; r++) {
+            sum[r] += err[r];
+        }
+        return true;
+    }
+
+    private boolean valid(Columns c, int from, int len) {
+        int to = from + len;
+        for (int i = 0; i < c.numbers.length; i++) {
+            double[] x = c.numbers[i];
+            if (x == null) {
+                continue;
+            }
+            boolean bad = false;
+            if (i == design.logOffsetInput) {
+                for (int r = from; r < to; r++) {
+                    double v = x[r];
+                    bad |= !(v > 0 && v < Double.POSITIVE_INFINITY);
+                }
+            } else {
+                for (int r = from; r < to; r++) {
+                    bad |= !(Math.abs(x[r]) <= Double.MAX_VALUE);
+                }
+            }
+            if (bad) {
+                return false;
+            }
+        }
+        for (int k = 0; k < factorInput.length; k++) {
+            int[] codes = c.codes[k];
+            int[] column = c.column[k];
+            for (int r = from; r < to; r++) {
+                int code = codes[r];
+                if (code < 0 || column[code] == -2) {
+                    return false;
+                }
+            }
+        }
+        return true;
+    }
+}
