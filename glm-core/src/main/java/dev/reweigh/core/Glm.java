@@ -94,8 +94,10 @@ public final class Glm {
             candidates[e.getKey()] = false;
             fixedBeta[e.getKey()] = e.getValue();
         }
-        double[] totalOffset = fd.offset.clone();
+        // IRLS only reads the offset, so the data's own array serves unless held columns add to it.
+        double[] totalOffset = fd.offset;
         if (!fixed.isEmpty()) {
+            totalOffset = new double[fd.offset.length];
             x.multiply(fixedBeta, fd.offset, totalOffset);
         }
         IrlsResult r = Irls.fit(new IrlsProblem(x, fd.y, fd.priorWeights, totalOffset, spec.family(), spec.link(),
