@@ -24,6 +24,7 @@ final class PlainDesign {
     private final int[] factorRef;
     private final int[] factorFirst;
     private final double[] b;
+    private final double[] padded; // b and a 0 for rows that hit no column of a factor
     private final boolean intercept;
 
     PlainDesign(CompiledDesign design, List<ScoringTerm> terms) {
@@ -54,6 +55,7 @@ final class PlainDesign {
         this.denseColumn = design.denseColumns();
         this.factorFirst = design.factorFirstColumns();
         this.b = design.coefficients();
+        this.padded = java.util.Arrays.copyOf(b, b.length + 1);
         this.intercept = design.hasIntercept();
     }
 
@@ -105,7 +107,7 @@ final class PlainDesign {
                 } else {
                     // the same mapping as ScoringTerm.Factor's node
                     int code = r < 0 ? lv : (lv < 0 || lv == r ? -1 : (lv < r ? lv : lv - 1));
-                    out[j] = code < 0 ? -1 : factorFirst[k] + code;
+                    out[j] = code < 0 ? b.length : factorFirst[k] + code; // b.length: no column
                 }
             }
             c.column[k] = out;
@@ -174,19 +176,22 @@ final class PlainDesign {
         for (int k = 0; k < factorInput.length; k++) {
             int[] codes = c.codes[k];
             int[] column = c.column[k];
+            int none = b.length;
             for (int r = 0; r < len; r++) {
+                // computed for every row and kept only for rows hitting a column: no branch on the level
                 int j = column[codes[from + r]];
-                if (j >= 0) {
-                    double v = 1.0;
-                    double bk = b[j];
-                    double p = v * bk;
-                    double pe = Math.fma(v, bk, -p);
-                    double s = sum[r];
-                    double t = s + p;
-                    double bb = t - s;
-                    err[r] += (s - (t - bb)) + (p - bb) + pe;
-                    sum[r] = t;
-                }
+                double v = 1.0;
+                double bk = padded[j];
+                double p = v * bk;
+                double pe = Math.fma(v, bk, -p);
+                double s = sum[r];
+                double e = err[r];
+                double t = s + p;
+                double bb = t - s;
+                double e2 = e + ((s - (t - bb)) + (p - bb) + pe);
+                boolean hit = j != none;
+                sum[r] = hit ? t : s;
+                err[r] = hit ? e2 : e;
             }
         }
         for (int r = 0; r < len; r++) {
