@@ -9,9 +9,9 @@ import java.util.List;
  * (offset, intercept, dense columns, factor blocks, each in a compensated sum), so the results
  * are bit-identical; what goes is the per-row dispatch over term nodes and bound inputs.
  *
- * <p>The cells of a block are checked before it is scored. A block holding any missing or
- * invalid value or unseen level is left to the row-by-row path, which reports the first bad cell
- * (or flags the fallback rows) exactly as always.
+ * <p>Cells are not checked here: any missing or invalid value or unseen level makes its row's
+ * linear predictor non-finite, and from such a row on the caller scores the block row by row,
+ * which reports the first bad cell (or flags the fallback rows) exactly as always.
  */
 final class PlainDesign {
     /** Rows per block: the block's running sums stay in the first-level cache. */
@@ -24,7 +24,7 @@ final class PlainDesign {
     private final int[] factorRef;
     private final int[] factorFirst;
     private final double[] b;
-    private final double[] padded; // b and a 0 for rows that hit no column of a factor
+    private final double[] padded; // b, then 0 for rows hitting no column of a factor, then NaN for bad levels
     private final boolean intercept;
 
     PlainDesign(CompiledDesign design, List<ScoringTerm> terms) {
@@ -55,7 +55,8 @@ final class PlainDesign {
         this.denseColumn = design.denseColumns();
         this.factorFirst = design.factorFirstColumns();
         this.b = design.coefficients();
-        this.padded = java.util.Arrays.copyOf(b, b.length + 1);
+        this.padded = java.util.Arrays.copyOf(b, b.length + 2);
+        padded[b.length + 1] = Double.NaN;
         this.intercept = design.hasIntercept();
     }
 
@@ -98,16 +99,17 @@ final class PlainDesign {
             int input = factorInput[k];
             c.codes[k] = (int[]) cols[input];
             int[] map = t.levelMap[input];
-            int[] out = new int[map.length];
+            int[] out = new int[map.length + 1];
             int r = factorRef[k];
+            out[0] = b.length + 1; // a missing level (code -1): NaN, so the row path reports it
             for (int j = 0; j < map.length; j++) {
                 int lv = map[j];
                 if (lv == -2) {
-                    out[j] = -2; // unseen: left to the row-by-row path
+                    out[j + 1] = b.length + 1; // unseen: NaN, so the row path throws or falls back and flags
                 } else {
                     // the same mapping as ScoringTerm.Factor's node
                     int code = r < 0 ? lv : (lv < 0 || lv == r ? -1 : (lv < r ? lv : lv - 1));
-                    out[j] = code < 0 ? b.length : factorFirst[k] + code; // b.length: no column
+                    out[j + 1] = code < 0 ? b.length : factorFirst[k] + code; // b.length: no column
                 }
             }
             c.column[k] = out;
@@ -116,15 +118,13 @@ final class PlainDesign {
     }
 
     /**
-     * Computes the linear predictor of rows from .. from + len - 1 into {@code c.sum[0 .. len)}.
-     *
-     * @return false, having scored nothing, when a cell of these rows is missing or invalid or
-     *     holds an unseen level
+     * Computes the linear predictor of rows from .. from + len - 1 into {@code c.sum[0 .. len)}
+     * without checking the cells: a row with a missing, non-finite or (for the exposure)
+     * non-positive number, a missing level or an unseen level comes out non-finite (NaN or
+     * infinite), because such a value propagates through every later step of the sum. The caller
+     * hands non-finite rows to the row-by-row path, which checks and reports as always.
      */
-    boolean eta(Columns c, int from, int len) {
-        if (!valid(c, from, len)) {
-            return false;
-        }
+    void eta(Columns c, int from, int len) {
         double[] sum = c.sum;
         double[] err = c.err;
         double[] off = c.offset;
@@ -179,7 +179,7 @@ final class PlainDesign {
             int none = b.length;
             for (int r = 0; r < len; r++) {
                 // computed for every row and kept only for rows hitting a column: no branch on the level
-                int j = column[codes[from + r]];
+                int j = column[Math.max(codes[from + r], -1) + 1];
                 double v = 1.0;
                 double bk = padded[j];
                 double p = v * bk;
@@ -197,41 +197,5 @@ final class PlainDesign {
         for (int r = 0; r < len; r++) {
             sum[r] += err[r];
         }
-        return true;
-    }
-
-    private boolean valid(Columns c, int from, int len) {
-        int to = from + len;
-        for (int i = 0; i < c.numbers.length; i++) {
-            double[] x = c.numbers[i];
-            if (x == null) {
-                continue;
-            }
-            boolean bad = false;
-            if (i == design.logOffsetInput) {
-                for (int r = from; r < to; r++) {
-                    double v = x[r];
-                    bad |= !(v > 0 && v < Double.POSITIVE_INFINITY);
-                }
-            } else {
-                for (int r = from; r < to; r++) {
-                    bad |= !(Math.abs(x[r]) <= Double.MAX_VALUE);
-                }
-            }
-            if (bad) {
-                return false;
-            }
-        }
-        for (int k = 0; k < factorInput.length; k++) {
-            int[] codes = c.codes[k];
-            int[] column = c.column[k];
-            for (int r = from; r < to; r++) {
-                int code = codes[r];
-                if (code < 0 || column[code] == -2) {
-                    return false;
-                }
-            }
-        }
-        return true;
     }
 }

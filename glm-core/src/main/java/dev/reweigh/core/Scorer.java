@@ -444,29 +444,29 @@ public final class Scorer {
         CompiledDesign.Scratch s = null;
         for (int from = 0; from < n; from += PlainDesign.BLOCK) {
             int len = Math.min(PlainDesign.BLOCK, n - from);
-            if (!plain.eta(cols, from, len)) {
-                if (s == null) {
-                    s = design.newScratch();
+            plain.eta(cols, from, len);
+            int r = 0;
+            for (; r < len; r++) {
+                double e = eta[r];
+                if (!(Math.abs(e) <= Double.MAX_VALUE)) {
+                    break; // a bad cell or an overflow: the row path checks and reports as always
                 }
-                for (int i = from; i < from + len; i++) {
-                    scoreRow(in, i, s, link, mean, null, flags);
-                }
-                continue;
-            }
-            if (mean == null) {
-                System.arraycopy(eta, 0, link, from, len);
-                continue;
-            }
-            // row by row as scoreRow writes, so a row outside the link's domain leaves the same outputs
-            for (int r = 0; r < len; r++) {
                 int i = from + r;
                 if (link != null) {
-                    link[i] = eta[r];
+                    link[i] = e;
                 }
                 if (flags != null) {
                     flags[i] = false;
                 }
-                mean[i] = mean(eta[r], i);
+                if (mean != null) {
+                    mean[i] = mean(e, i);
+                }
+            }
+            for (; r < len; r++) {
+                if (s == null) {
+                    s = design.newScratch();
+                }
+                scoreRow(in, from + r, s, link, mean, null, flags);
             }
         }
     }
