@@ -22,15 +22,22 @@ abstract class ScoringTerm {
     /** Largest number of model columns accepted from an artifact. */
     static final long MAX_COLUMNS = 1L << 24;
 
-    abstract int partCount();
+    /** Number of parts (blocks of model columns); most terms have one. */
+    int partCount() {
+        return 1;
+    }
 
     abstract boolean isFactorPart(int k);
 
-    /** Whether a dense part carries a low-order correction. */
-    abstract boolean hasLow(int k);
+    /** Whether a dense part carries a low-order correction (none by default). */
+    boolean hasLow(int k) {
+        return false;
+    }
 
-    /** Whether a factor part carries per-row multipliers (else each entry is 1). */
-    abstract boolean hasMultiplier(int k);
+    /** Whether a factor part carries per-row multipliers, else each entry is 1 (none by default). */
+    boolean hasMultiplier(int k) {
+        return false;
+    }
 
     /** Number of model columns of part k (1 for a dense part). */
     abstract long partWidth(int k);
@@ -206,22 +213,7 @@ abstract class ScoringTerm {
         }
 
         @Override
-        int partCount() {
-            return 1;
-        }
-
-        @Override
         boolean isFactorPart(int k) {
-            return false;
-        }
-
-        @Override
-        boolean hasLow(int k) {
-            return false;
-        }
-
-        @Override
-        boolean hasMultiplier(int k) {
             return false;
         }
 
@@ -274,23 +266,8 @@ abstract class ScoringTerm {
         }
 
         @Override
-        int partCount() {
-            return 1;
-        }
-
-        @Override
         boolean isFactorPart(int k) {
             return true;
-        }
-
-        @Override
-        boolean hasLow(int k) {
-            return false;
-        }
-
-        @Override
-        boolean hasMultiplier(int k) {
-            return false;
         }
 
         @Override
@@ -367,11 +344,6 @@ abstract class ScoringTerm {
         }
 
         @Override
-        boolean hasMultiplier(int k) {
-            return false;
-        }
-
-        @Override
         long partWidth(int k) {
             return 1;
         }
@@ -443,16 +415,6 @@ abstract class ScoringTerm {
 
         @Override
         boolean isFactorPart(int k) {
-            return false;
-        }
-
-        @Override
-        boolean hasLow(int k) {
-            return false;
-        }
-
-        @Override
-        boolean hasMultiplier(int k) {
             return false;
         }
 

@@ -1,5 +1,6 @@
 package dev.reweigh.core;
 
+import dev.reweigh.core.internal.ConvergenceRule;
 import dev.reweigh.core.internal.DesignMatrix;
 import dev.reweigh.core.internal.wls.BlockedGramAccumulator;
 import dev.reweigh.core.internal.wls.DesignGramAccumulator;
@@ -213,19 +214,10 @@ final class StreamingRun {
                 break;
             }
             double devNew = next.deviance();
-            double devChange = Math.abs(devNew - dev) / (Math.abs(devNew) + 0.1);
-            double coefChange = Double.POSITIVE_INFINITY;
-            if (fromBeta) {
-                double num = 0;
-                double den = 0;
-                for (int j = 0; j < p; j++) {
-                    if (!excluded[j]) {
-                        num = Math.max(num, Math.abs(betaNew[j] - beta[j]) * rms[j]);
-                        den = Math.max(den, Math.abs(betaNew[j]) * rms[j]);
-                    }
-                }
-                coefChange = num == 0 ? 0 : num / Math.max(den, Double.MIN_NORMAL);
-            }
+            double devChange = ConvergenceRule.devianceChange(devNew, dev);
+            double coefChange = fromBeta
+                    ? ConvergenceRule.coefficientChange(betaNew, beta, rms, excluded)
+                    : Double.POSITIVE_INFINITY;
             GramPartial swap = accepted;
             accepted = candidate;
             candidate = swap;

@@ -229,19 +229,10 @@ public final class Irls {
                 emit(iter, dev, halvings, t0);
                 break;
             }
-            double devChange = Math.abs(devNew - dev) / (Math.abs(devNew) + 0.1);
-            double coefChange = Double.POSITIVE_INFINITY;
-            if (fromBeta) {
-                double num = 0;
-                double den = 0;
-                for (int j = 0; j < p; j++) {
-                    if (!excluded[j]) {
-                        num = Math.max(num, Math.abs(betaNew[j] - beta[j]) * columnRms[j]);
-                        den = Math.max(den, Math.abs(betaNew[j]) * columnRms[j]);
-                    }
-                }
-                coefChange = num == 0 ? 0 : num / Math.max(den, Double.MIN_NORMAL);
-            }
+            double devChange = ConvergenceRule.devianceChange(devNew, dev);
+            double coefChange = fromBeta
+                    ? ConvergenceRule.coefficientChange(betaNew, beta, columnRms, excluded)
+                    : Double.POSITIVE_INFINITY;
             boolean haveCoefficients = base != null || halvings == 0;
             System.arraycopy(etaNew, 0, eta, 0, n);
             System.arraycopy(muNew, 0, mu, 0, n);
