@@ -147,9 +147,7 @@ final class DesignRecipe {
         int col = 0;
         boolean anyLow = false;
         if (intercept) {
-            double[] ones = new double[n];
-            java.util.Arrays.fill(ones, 1.0);
-            denseHi.add(ones);
+            denseHi.add(null); // the constant 1, written straight into the block below
             denseLo.add(null);
             denseCol.add(col++);
         }
@@ -173,6 +171,12 @@ final class DesignRecipe {
         for (int k = 0; k < d; k++) {
             double[] h = denseHi.get(k);
             double[] l = denseLo.get(k);
+            if (h == null) {
+                for (int i = 0; i < n; i++) {
+                    dense[i * d + k] = 1.0;
+                }
+                continue;
+            }
             for (int i = 0; i < n; i++) {
                 dense[i * d + k] = h[i];
                 if (l != null) {
@@ -261,6 +265,14 @@ final class DesignRecipe {
         @Override
         public List<Part> parts(Table t, int[] rows) {
             double[] src = t.numericViewChecked(column);
+            if (rows.length == src.length) {
+                // rows are increasing, so all of them means the identity: the table's own (immutable)
+                // column serves, checked but not copied, which keeps an n-sized copy per column off the heap
+                for (int i = 0; i < src.length; i++) {
+                    finite(column, i, src[i]);
+                }
+                return List.of(Part.dense(column, src, null));
+            }
             double[] v = new double[rows.length];
             for (int i = 0; i < rows.length; i++) {
                 v[i] = finite(column, rows[i], src[rows[i]]);

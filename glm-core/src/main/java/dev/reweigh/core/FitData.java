@@ -90,8 +90,11 @@ final class FitData {
         }
         double[] w = new double[n];
         double[] off = new double[n];
-        double[] y = new double[n];
         double[] resp = t.numericView(spec.response());
+        // with every row kept and no trials the response is the table's own (immutable) column, read in
+        // place instead of copied: one n-sized array less for the whole fit
+        boolean responseInPlace = n == rowCount && !spec.trials().isPresent();
+        double[] y = responseInPlace ? resp : new double[n];
         double[] wcol = spec.weights().map(t::numericView).orElse(null);
         double[] ocol = spec.offset().map(t::numericView).orElse(null);
         double[] ecol = spec.logOffset().map(t::numericView).orElse(null);
@@ -139,7 +142,7 @@ final class FitData {
                 }
                 y[i] = ti == 0 ? 0.0 : yi / ti;
                 wi *= ti;
-            } else {
+            } else if (!responseInPlace) {
                 y[i] = yi;
             }
             w[i] = wi;

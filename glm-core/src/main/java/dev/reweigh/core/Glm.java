@@ -78,6 +78,10 @@ public final class Glm {
 
     static FittedModel fit(ModelSpec spec, Table data, FitOptions options, Map<Integer, Double> fixed) {
         FitData fd = FitData.prepare(spec, data);
+        // The null model is fitted first, while no design and no main-fit arrays are held: after the
+        // main fit it would add its own n-sized arrays to the design's (the fit's peak heap).
+        List<String> nullWarnings = new ArrayList<>();
+        double nullDeviance = nullDeviance(spec, fd, options, nullWarnings);
         DesignRecipe recipe = DesignRecipe.create(spec, data, fd.rows, fd.priorWeights);
         DesignMatrix x = recipe.build(data, fd.rows);
         int p = x.columns();
@@ -102,6 +106,10 @@ public final class Glm {
         }
         IrlsResult r = Irls.fit(new IrlsProblem(x, fd.y, fd.priorWeights, totalOffset, spec.family(), spec.link(),
                 candidates), options);
+        if (Thread.currentThread().isInterrupted()) {
+            // an interrupt that came during the last iteration still stops the fit (status kept)
+            throw new FitInterruptedException("the fit was interrupted after its last iteration");
+        }
         double[] beta = r.beta.clone();
         for (Map.Entry<Integer, Double> e : fixed.entrySet()) {
             beta[e.getKey()] = e.getValue();
@@ -111,7 +119,7 @@ public final class Glm {
             }
         }
         List<String> warnings = new ArrayList<>(r.warnings);
-        double nullDeviance = nullDeviance(spec, fd, options, warnings);
+        warnings.addAll(nullWarnings);
         int rank = 0;
         for (int j = 0; j < p; j++) {
             if (candidates[j] && !r.aliased[j]) {

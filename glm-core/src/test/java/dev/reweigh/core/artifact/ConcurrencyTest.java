@@ -119,9 +119,9 @@ class ConcurrencyTest {
     }
 
     @Test
-    void anInterruptDuringTheLastIterationStopsTheNullModelFitToo() {
-        // the null deviance needs its own small fit when there is an offset; an interrupt that
-        // arrives in the main fit's last iteration must stop it rather than become a warning
+    void anInterruptDuringTheLastIterationStillStopsTheFit() {
+        // the null model (its own small fit when there is an offset) runs before the main fit; an
+        // interrupt that arrives in the main fit's last iteration must still stop the whole fit
         int last = Glm.fit(Fixtures.SPEC, Fixtures.TRAIN_TABLE).iterations();
         FitOptions interruptAtLast = FitOptions.builder().listener(e -> {
             if (e.iteration() == last) {
