@@ -24,7 +24,6 @@ final class PlainDesign {
     private final int[] factorRef;
     private final int[] factorFirst;
     private final double[] b;
-    private final double[] padded; // b, then 0 for rows hitting no column of a factor, then NaN for bad levels
     private final boolean intercept;
 
     PlainDesign(CompiledDesign design, List<ScoringTerm> terms) {
@@ -55,43 +54,39 @@ final class PlainDesign {
         this.denseColumn = design.denseColumns();
         this.factorFirst = design.factorFirstColumns();
         this.b = design.coefficients();
-        this.padded = java.util.Arrays.copyOf(b, b.length + 2);
-        padded[b.length + 1] = Double.NaN;
         this.intercept = design.hasIntercept();
     }
 
     /** One call's columns and block storage. */
     static final class Columns {
-        final double[][] numbers;
         final double[][] dense;
         final int[][] codes;
-        final int[][] column;
+        final double[][] levelCoefficient; // per factor: table level code + 1 -> what the row adds
         final double[] offset;
         final double[] logOffset;
         final double[] sum = new double[BLOCK];
         final double[] err = new double[BLOCK];
 
-        private Columns(int inputs, int dense, int factors, double[] offset, double[] logOffset) {
-            this.numbers = new double[inputs][];
+        private Columns(int dense, int factors, double[] offset, double[] logOffset) {
             this.dense = new double[dense][];
             this.codes = new int[factors][];
-            this.column = new int[factors][];
+            this.levelCoefficient = new double[factors][];
             this.offset = offset;
             this.logOffset = logOffset;
         }
     }
 
-    /** Resolves the table's columns once: numbers to arrays, table level codes to model columns. */
+    /**
+     * Resolves the table's columns once: numbers to arrays, and each table level straight to what
+     * a row of that level adds: its coefficient; -0.0 for the reference level, since x + (-0.0)
+     * == x for every x, the sign of zero included (so no branch on the level); NaN for a missing or
+     * unseen level, so the row comes out non-finite and the row path reports or flags it.
+     */
     Columns bind(ScoringInputs.TableBinding t) {
         Object[] cols = t.columns;
-        Columns c = new Columns(cols.length, denseInput.length, factorInput.length,
+        Columns c = new Columns(denseInput.length, factorInput.length,
                 design.offsetInput < 0 ? null : (double[]) cols[design.offsetInput],
                 design.logOffsetInput < 0 ? null : (double[]) cols[design.logOffsetInput]);
-        for (int i = 0; i < cols.length; i++) {
-            if (!design.inputIsFactor[i]) {
-                c.numbers[i] = (double[]) cols[i];
-            }
-        }
         for (int k = 0; k < denseInput.length; k++) {
             c.dense[k] = (double[]) cols[denseInput[k]];
         }
@@ -99,20 +94,20 @@ final class PlainDesign {
             int input = factorInput[k];
             c.codes[k] = (int[]) cols[input];
             int[] map = t.levelMap[input];
-            int[] out = new int[map.length + 1];
+            double[] out = new double[map.length + 1];
             int r = factorRef[k];
-            out[0] = b.length + 1; // a missing level (code -1): NaN, so the row path reports it
+            out[0] = Double.NaN; // a missing level (code -1)
             for (int j = 0; j < map.length; j++) {
                 int lv = map[j];
                 if (lv == -2) {
-                    out[j + 1] = b.length + 1; // unseen: NaN, so the row path throws or falls back and flags
+                    out[j + 1] = Double.NaN; // unseen
                 } else {
                     // the same mapping as ScoringTerm.Factor's node
                     int code = r < 0 ? lv : (lv < 0 || lv == r ? -1 : (lv < r ? lv : lv - 1));
-                    out[j + 1] = code < 0 ? b.length : factorFirst[k] + code; // b.length: no column
+                    out[j + 1] = code < 0 ? -0.0 : b[factorFirst[k] + code];
                 }
             }
-            c.column[k] = out;
+            c.levelCoefficient[k] = out;
         }
         return c;
     }
@@ -129,6 +124,7 @@ final class PlainDesign {
         double[] err = c.err;
         double[] off = c.offset;
         double[] logOff = c.logOffset;
+        // Math.log never returns -0.0, so 0.0 + log(x) (the row path's form) is log(x) itself
         if (off != null && logOff != null) {
             for (int r = 0; r < len; r++) {
                 double o = off[from + r];
@@ -139,25 +135,24 @@ final class PlainDesign {
             System.arraycopy(off, from, sum, 0, len);
         } else if (logOff != null) {
             for (int r = 0; r < len; r++) {
-                double o = 0.0;
-                o += Math.log(logOff[from + r]);
-                sum[r] = o;
+                sum[r] = Math.log(logOff[from + r]);
             }
         } else {
             java.util.Arrays.fill(sum, 0, len, 0.0);
         }
-        java.util.Arrays.fill(err, 0, len, 0.0);
         if (intercept) {
-            double bk = b[0];
-            double p = bk;   // 1.0 * bk
-            double pe = Math.fma(1.0, bk, -p);
+            // the product 1.0 * b is exact, so its error term (+0.0) changes nothing and is left out;
+            // 0.0 + e keeps the row path's sign of a zero error
+            double p = b[0];
             for (int r = 0; r < len; r++) {
                 double s = sum[r];
                 double t = s + p;
                 double bb = t - s;
-                err[r] += (s - (t - bb)) + (p - bb) + pe;
+                err[r] = 0.0 + ((s - (t - bb)) + (p - bb));
                 sum[r] = t;
             }
+        } else {
+            java.util.Arrays.fill(err, 0, len, 0.0);
         }
         for (int k = 0; k < denseInput.length; k++) {
             double[] x = c.dense[k];
@@ -175,23 +170,15 @@ final class PlainDesign {
         }
         for (int k = 0; k < factorInput.length; k++) {
             int[] codes = c.codes[k];
-            int[] column = c.column[k];
-            int none = b.length;
+            double[] coefficient = c.levelCoefficient[k];
             for (int r = 0; r < len; r++) {
-                // computed for every row and kept only for rows hitting a column: no branch on the level
-                int j = column[Math.max(codes[from + r], -1) + 1];
-                double v = 1.0;
-                double bk = padded[j];
-                double p = v * bk;
-                double pe = Math.fma(v, bk, -p);
+                // the product 1.0 * b is exact, so its error term is left out as for the intercept
+                double p = coefficient[Math.max(codes[from + r], -1) + 1];
                 double s = sum[r];
-                double e = err[r];
                 double t = s + p;
                 double bb = t - s;
-                double e2 = e + ((s - (t - bb)) + (p - bb) + pe);
-                boolean hit = j != none;
-                sum[r] = hit ? t : s;
-                err[r] = hit ? e2 : e;
+                err[r] += (s - (t - bb)) + (p - bb);
+                sum[r] = t;
             }
         }
         for (int r = 0; r < len; r++) {
