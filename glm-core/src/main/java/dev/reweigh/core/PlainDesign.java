@@ -113,76 +113,116 @@ final class PlainDesign {
     }
 
     /**
-     * Computes the linear predictor of rows from .. from + len - 1 into {@code c.sum[0 .. len)}
-     * without checking the cells: a row with a missing, non-finite or (for the exposure)
-     * non-positive number, a missing level or an unseen level comes out non-finite (NaN or
-     * infinite), because such a value propagates through every later step of the sum. The caller
-     * hands non-finite rows to the row-by-row path, which checks and reports as always.
+     * Computes the linear predictor of rows from .. from + len - 1 as the compensated pairs
+     * {@code c.sum[r] + c.err[r]}, r in [0, len), the caller adding the two (bit for bit the row
+     * path's final {@code sum + err}), without checking the cells: a row with a missing,
+     * non-finite or (for the exposure) non-positive number, a missing level or an unseen level
+     * comes out non-finite (NaN or infinite), because such a value propagates through every later
+     * step of the sum. The caller hands non-finite rows to the row-by-row path, which checks and
+     * reports as always. Terms are taken two at a time, so a row's running pair stays in
+     * registers between them; the order of the operations is the row path's.
      */
     void eta(Columns c, int from, int len) {
         double[] sum = c.sum;
         double[] err = c.err;
         double[] off = c.offset;
         double[] logOff = c.logOffset;
-        // Math.log never returns -0.0, so 0.0 + log(x) (the row path's form) is log(x) itself
-        if (off != null && logOff != null) {
-            for (int r = 0; r < len; r++) {
-                double o = off[from + r];
-                o += Math.log(logOff[from + r]);
-                sum[r] = o;
+        // the row path starts from 0.0, sets the offset and adds the log-exposure; Math.log never
+        // returns -0.0, so 0.0 + log(x) is log(x) itself. The product 1.0 * b0 is exact, so the
+        // intercept's error term (+0.0) changes nothing and is left out; 0.0 + e keeps the row
+        // path's sign of a zero error. (The tests on null arrays are loop-invariant.)
+        double p = b[0];
+        for (int r = 0; r < len; r++) {
+            double s = off == null ? 0.0 : off[from + r];
+            if (logOff != null) {
+                s = off == null ? Math.log(logOff[from + r]) : s + Math.log(logOff[from + r]);
             }
-        } else if (off != null) {
-            System.arraycopy(off, from, sum, 0, len);
-        } else if (logOff != null) {
-            for (int r = 0; r < len; r++) {
-                sum[r] = Math.log(logOff[from + r]);
-            }
-        } else {
-            java.util.Arrays.fill(sum, 0, len, 0.0);
-        }
-        if (intercept) {
-            // the product 1.0 * b is exact, so its error term (+0.0) changes nothing and is left out;
-            // 0.0 + e keeps the row path's sign of a zero error
-            double p = b[0];
-            for (int r = 0; r < len; r++) {
-                double s = sum[r];
+            if (intercept) {
                 double t = s + p;
                 double bb = t - s;
                 err[r] = 0.0 + ((s - (t - bb)) + (p - bb));
                 sum[r] = t;
+            } else {
+                err[r] = 0.0;
+                sum[r] = s;
             }
-        } else {
-            java.util.Arrays.fill(err, 0, len, 0.0);
         }
-        for (int k = 0; k < denseInput.length; k++) {
+        int nd = denseInput.length;
+        int k = 0;
+        for (; k + 1 < nd; k += 2) {
+            double[] x1 = c.dense[k];
+            double[] x2 = c.dense[k + 1];
+            double b1 = b[denseColumn[k]];
+            double b2 = b[denseColumn[k + 1]];
+            for (int r = 0; r < len; r++) {
+                double s = sum[r];
+                double e = err[r];
+                double xv = x1[from + r];
+                double q = xv * b1;
+                double qe = Math.fma(xv, b1, -q);
+                double t = s + q;
+                double bb = t - s;
+                e += (s - (t - bb)) + (q - bb) + qe;
+                s = t;
+                xv = x2[from + r];
+                q = xv * b2;
+                qe = Math.fma(xv, b2, -q);
+                t = s + q;
+                bb = t - s;
+                e += (s - (t - bb)) + (q - bb) + qe;
+                sum[r] = t;
+                err[r] = e;
+            }
+        }
+        if (k < nd) {
             double[] x = c.dense[k];
             double bk = b[denseColumn[k]];
             for (int r = 0; r < len; r++) {
                 double xv = x[from + r];
-                double p = xv * bk;
-                double pe = Math.fma(xv, bk, -p);
+                double q = xv * bk;
+                double qe = Math.fma(xv, bk, -q);
                 double s = sum[r];
-                double t = s + p;
+                double t = s + q;
                 double bb = t - s;
-                err[r] += (s - (t - bb)) + (p - bb) + pe;
+                err[r] += (s - (t - bb)) + (q - bb) + qe;
                 sum[r] = t;
             }
         }
-        for (int k = 0; k < factorInput.length; k++) {
-            int[] codes = c.codes[k];
-            double[] coefficient = c.levelCoefficient[k];
+        // factors: the product 1.0 * b is exact, so its error term is left out as for the intercept
+        int nf = factorInput.length;
+        k = 0;
+        for (; k + 1 < nf; k += 2) {
+            int[] codes1 = c.codes[k];
+            int[] codes2 = c.codes[k + 1];
+            double[] coef1 = c.levelCoefficient[k];
+            double[] coef2 = c.levelCoefficient[k + 1];
             for (int r = 0; r < len; r++) {
-                // the product 1.0 * b is exact, so its error term is left out as for the intercept
-                double p = coefficient[Math.max(codes[from + r], -1) + 1];
                 double s = sum[r];
-                double t = s + p;
+                double e = err[r];
+                double q = coef1[Math.max(codes1[from + r], -1) + 1];
+                double t = s + q;
                 double bb = t - s;
-                err[r] += (s - (t - bb)) + (p - bb);
+                e += (s - (t - bb)) + (q - bb);
+                s = t;
+                q = coef2[Math.max(codes2[from + r], -1) + 1];
+                t = s + q;
+                bb = t - s;
+                e += (s - (t - bb)) + (q - bb);
                 sum[r] = t;
+                err[r] = e;
             }
         }
-        for (int r = 0; r < len; r++) {
-            sum[r] += err[r];
+        if (k < nf) {
+            int[] codes = c.codes[k];
+            double[] coef = c.levelCoefficient[k];
+            for (int r = 0; r < len; r++) {
+                double q = coef[Math.max(codes[from + r], -1) + 1];
+                double s = sum[r];
+                double t = s + q;
+                double bb = t - s;
+                err[r] += (s - (t - bb)) + (q - bb);
+                sum[r] = t;
+            }
         }
     }
 }

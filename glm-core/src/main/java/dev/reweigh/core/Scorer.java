@@ -440,14 +440,15 @@ public final class Scorer {
     private void runPlain(PlainDesign plain, ScoringInputs.TableBinding in, int n, double[] link, double[] mean,
             boolean[] flags) {
         PlainDesign.Columns cols = plain.bind(in);
-        double[] eta = cols.sum;
+        double[] sum = cols.sum;
+        double[] err = cols.err;
         CompiledDesign.Scratch s = null;
         for (int from = 0; from < n; from += PlainDesign.BLOCK) {
             int len = Math.min(PlainDesign.BLOCK, n - from);
             plain.eta(cols, from, len);
             int r = 0;
             for (; r < len; r++) {
-                double e = eta[r];
+                double e = sum[r] + err[r];
                 if (!(Math.abs(e) <= Double.MAX_VALUE)) {
                     break; // a bad cell or an overflow: the row path checks and reports as always
                 }

@@ -94,5 +94,8 @@ public final class FactorFitHeapProbe {
                 + " the collector's view, e.g. metaspace is not counted); extra over before %d MB = %.2f x the table%n",
                 liveAfterGc.get() >> 20, (liveAfterGc.get() - before) >> 20,
                 (liveAfterGc.get() - before) / (double) tableBytes);
+        double live = (liveAfterGc.get() - before) / (double) tableBytes;
+        System.out.printf("target: the fit's live heap <= 2 x the table: %s (%.2f x)%n", live <= 2.0 ? "met" : "missed",
+                live);
     }
 }

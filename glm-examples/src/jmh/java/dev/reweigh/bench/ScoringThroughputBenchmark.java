@@ -153,7 +153,8 @@ public class ScoringThroughputBenchmark {
     }
 
     /**
-     * Context: the same means with the scorer's compensated (double-double) sum, hand-written one row at a time (what the block layout saves).
+     * Context: the same means with the scorer's compensated (double-double) sum, hand-written
+     * one row at a time (what the block layout saves).
      *
      * @return the means
      */
