@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import net.jqwik.api.ForAll;
 import net.jqwik.api.From;
 import net.jqwik.api.Property;
+import org.junit.jupiter.api.Test;
 import net.jqwik.api.Provide;
 import net.jqwik.api.Arbitrary;
 import net.jqwik.api.constraints.IntRange;
@@ -90,15 +91,39 @@ class CommonsMathReferenceTest {
         double shape = w / phi;
         GammaDistribution reference = new GammaDistribution(shape, mu / shape);
         // The log-density is a sum of terms as large as shape * |log y| and log Gamma(shape) (up to ~1e4 here)
-        // that cancel to a small number, so both sides carry absolute rounding errors of a few ulps of the
-        // largest term: the tolerance adds that floor to the relative one (common practice, no source).
+        // that cancel to a small number, so every evaluation carries absolute rounding errors of the largest
+        // term: the tolerances add that floor to the relative one (common practice, no source). The tight
+        // reference is the closed form -log Gamma(k) - k log(theta) + (k - 1) log y - y / theta with Commons
+        // Math's log-gamma function; GammaDistribution.logDensity itself is checked more loosely, because for
+        // shapes below 1 its error reaches 1.3e-12 of the largest term (gammaDensityWhereTermsCancel below).
+        double theta = mu / shape;
+        double logGammaShape = org.apache.commons.math3.special.Gamma.logGamma(shape);
+        double closedForm = -logGammaShape - shape * Math.log(theta) + (shape - 1) * Math.log(y) - y / theta;
+        double largestTerm = Math.abs(closedForm) + shape * (Math.abs(Math.log(y)) + Math.abs(Math.log(theta)) + 1)
+                + Math.abs(logGammaShape) + y / theta;
+        double ours = Families.gamma().logDensity(y, mu, phi, w);
+        assertEquals(closedForm, ours, 1e-10 * Math.abs(closedForm) + 1e-14 * largestTerm, "log-density (closed form)");
         double logRef = reference.logDensity(y);
-        double largestTerm = Math.abs(logRef) + shape * (Math.abs(Math.log(y)) + Math.abs(Math.log(mu / shape)) + 1)
-                + Math.abs(org.apache.commons.math3.special.Gamma.logGamma(shape));
-        assertEquals(logRef, Families.gamma().logDensity(y, mu, phi, w),
-                1e-10 * Math.abs(logRef) + 1e-14 * largestTerm, "log-density");
+        assertEquals(logRef, ours, 1e-10 * Math.abs(logRef) + 1e-11 * largestTerm, "log-density (GammaDistribution)");
         double cdf = reference.cumulativeProbability(y);
         assertEquals(cdf, Families.gamma().cumulativeProbability(y, mu, phi, w), 1e-11 * cdf + 1e-14);
+    }
+
+    @Test
+    void gammaDensityWhereTermsCancel() {
+        // Shapes below 1 where terms of size ~5 cancel to a few 1e-3 or 1e-4. Reference values: the
+        // closed-form Gamma log-density evaluated with 40 significant digits in mpmath 1.3.0 (Johansson
+        // et al., mpmath: a Python library for arbitrary-precision floating-point arithmetic). Commons
+        // Math 3.6.1's GammaDistribution gives -4.112293473337303e-4, -2.35219380273044e-3 and
+        // 1.2489993405721211e-2 here (1.2e-13, 8.1e-13 and 6.5e-12 off); ours must be within 2e-15 of the
+        // largest term (about 5).
+        assertEquals(-4.112293474550169273608e-4,
+                Families.gamma().logDensity(0.01, 2.7824625776998158, 0.13509970179566175, 0.1), 1e-14, "shape 0.74");
+        assertEquals(-2.352193801917551316262e-3,
+                Families.gamma().logDensity(0.01, 10.667065372115445, 0.18436147579385526, 0.10000000000029186),
+                1e-14, "shape 0.54");
+        assertEquals(1.248999341219635947152e-2,
+                Families.gamma().logDensity(0.01, 88.72095990315518, 0.2721113995975071, 0.1), 1e-14, "shape 0.37");
     }
 
     @Property(tries = 500)
