@@ -97,6 +97,10 @@ final class JsonFields {
     }
 
     static int integer(Map<String, Object> m, String key, String path, int min, int max) {
+        return (int) wholeNumber(m, key, path, min, max);
+    }
+
+    static long wholeNumber(Map<String, Object> m, String key, String path, long min, long max) {
         Object v = required(m, key, path);
         String p = child(path, key);
         if (!(v instanceof Long)) {
@@ -107,7 +111,7 @@ final class JsonFields {
             throw new ArtifactException(p, "value " + x + " is out of range; expected a whole number from " + min
                     + " to " + max);
         }
-        return (int) x;
+        return x;
     }
 
     static ArtifactException wrongType(String path, String expected, Object found) {

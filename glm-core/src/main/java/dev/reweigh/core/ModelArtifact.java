@@ -30,7 +30,9 @@ import java.util.Set;
  * is needed to score new rows exactly as the fitted model does (family and link by name, the
  * specification with factor levels, reference levels and polynomial recurrences, column names,
  * coefficients, unscaled covariance, dispersion) and a summary of the fit. Reading needs only
- * glm-families and glm-core; a read model scores bit-identically to the one written.
+ * glm-families and glm-core; a read model scores bit-identically to the one written. In-memory
+ * fits ({@link #of(FittedModel)}) and streaming fits ({@link #of(StreamingFit)}) give the same kind
+ * of artifact.
  *
  * <pre>{@code
  * ModelArtifact.of(fit).write(Path.of("frequency.json"));
@@ -89,18 +91,20 @@ public final class ModelArtifact {
 
     private static final int MAJOR = 1;
     private static final int MAX_COUNT = Integer.MAX_VALUE;
+    // streaming fits count rows in a long
+    private static final long MAX_ROWS = Long.MAX_VALUE;
 
     private final String formatVersion;
     private final String libraryVersion;
     private final ModelSpec spec;
     private final ScoringModel scoring;
     private final String dispersionMethod;
-    private final int rowCount;
-    private final int droppedRows;
+    private final long rowCount;
+    private final long droppedRows;
     private final double deviance;
     private final double nullDeviance;
-    private final int residualDf;
-    private final int nullDf;
+    private final long residualDf;
+    private final long nullDf;
     private final int iterations;
     private final boolean converged;
     private final double logLikelihood;
@@ -108,8 +112,8 @@ public final class ModelArtifact {
     private final String checksum;
 
     private ModelArtifact(String formatVersion, String libraryVersion, ModelSpec spec, ScoringModel scoring,
-            String dispersionMethod, int rowCount, int droppedRows, double deviance, double nullDeviance,
-            int residualDf, int nullDf, int iterations, boolean converged, double logLikelihood,
+            String dispersionMethod, long rowCount, long droppedRows, double deviance, double nullDeviance,
+            long residualDf, long nullDf, int iterations, boolean converged, double logLikelihood,
             List<String> warnings) {
         this.formatVersion = formatVersion;
         this.libraryVersion = libraryVersion;
@@ -166,13 +170,17 @@ public final class ModelArtifact {
     public static ModelArtifact of(FittedModel fit, double dispersion, String method) {
         Objects.requireNonNull(fit, "fit");
         Objects.requireNonNull(method, "method");
+        requireDispersion(dispersion, method);
+        return create(fit, dispersion, method);
+    }
+
+    private static void requireDispersion(double dispersion, String method) {
         if (!(dispersion > 0) || Double.isInfinite(dispersion)) {
             throw new IllegalArgumentException("the dispersion must be positive and finite, got " + dispersion);
         }
         if (method.isBlank()) {
             throw new IllegalArgumentException("the dispersion method must be named");
         }
-        return create(fit, dispersion, method);
     }
 
     private static ModelArtifact create(FittedModel fit, double phi, String method) {
@@ -182,6 +190,62 @@ public final class ModelArtifact {
         return new ModelArtifact(FORMAT_VERSION, Reweigh.version(), rebuildSpec(fit.spec(), sm),
                 sm, method, fit.rowCount(), fit.droppedRows(), fit.deviance(), fit.nullDeviance(), fit.residualDf(),
                 fit.nullDf(), fit.iterations(), fit.converged(), ll, fit.warnings());
+    }
+
+    /**
+     * Makes the artifact of a streaming fit ({@link StreamingGlm}), so a model fitted chunk by
+     * chunk, for example straight from a database, can be deployed like one fitted in memory. The
+     * dispersion is 1 for families that fix it and otherwise the Pearson estimate from the fit's
+     * last pass ({@link StreamingFit#pearsonChiSquare()} over the residual degrees of freedom). The
+     * log-likelihood is recorded for families that fix the dispersion (gathered during the fit);
+     * for the others it would need one more pass over the data at the chosen dispersion, so it is
+     * left out ({@link #logLikelihood()} is empty).
+     *
+     * <pre>{@code
+     * StreamingFit fit = StreamingGlm.fit(spec, JdbcChunkSource.of(...));
+     * ModelArtifact.of(fit).write(Path.of("frequency.json"));
+     * }</pre>
+     *
+     * @param fit the streaming fit
+     * @return the artifact
+     * @throws ReweighException when the family or link is the caller's own implementation, whose
+     *     name the library cannot look up when reading
+     * @since 0.1
+     */
+    public static ModelArtifact of(StreamingFit fit) {
+        Objects.requireNonNull(fit, "fit");
+        return create(fit, ScoringModel.defaultDispersion(fit),
+                fit.spec().family().isDispersionFixed() ? FIXED_BY_FAMILY : PEARSON);
+    }
+
+    /**
+     * Makes the artifact of a streaming fit with a dispersion estimated by the caller.
+     *
+     * @param fit the streaming fit
+     * @param dispersion a positive finite dispersion
+     * @param method how it was estimated, recorded as given
+     * @return the artifact
+     * @throws IllegalArgumentException when the dispersion is not positive and finite or the
+     *     method is blank
+     * @throws ReweighException when the family or link is the caller's own implementation
+     * @since 0.1
+     */
+    public static ModelArtifact of(StreamingFit fit, double dispersion, String method) {
+        Objects.requireNonNull(fit, "fit");
+        Objects.requireNonNull(method, "method");
+        requireDispersion(dispersion, method);
+        return create(fit, dispersion, method);
+    }
+
+    private static ModelArtifact create(StreamingFit fit, double phi, String method) {
+        Family family = fit.spec().family();
+        requireStorableNames(family, fit.spec().link());
+        ScoringModel sm = ScoringModel.of(fit, phi);
+        double ll = family.isDispersionFixed() && phi == 1.0 ? fit.logLikelihoodAtUnitDispersion() : Double.NaN;
+        long nullDf = fit.residualDf() + fit.rank() - (fit.spec().hasIntercept() ? 1 : 0);
+        return new ModelArtifact(FORMAT_VERSION, Reweigh.version(), rebuildSpec(fit.spec(), sm), sm, method,
+                fit.rowCount(), fit.droppedRows(), fit.deviance(), fit.nullDeviance(), fit.residualDf(), nullDf,
+                fit.iterations(), fit.converged(), ll, fit.warnings());
     }
 
     /** The artifact stores family and link by name: a caller's own implementation cannot be read back. */
@@ -350,7 +414,7 @@ public final class ModelArtifact {
      * @return the row count
      * @since 0.1
      */
-    public int rowCount() {
+    public long rowCount() {
         return rowCount;
     }
 
@@ -360,7 +424,7 @@ public final class ModelArtifact {
      * @return the count
      * @since 0.1
      */
-    public int droppedRows() {
+    public long droppedRows() {
         return droppedRows;
     }
 
@@ -390,7 +454,7 @@ public final class ModelArtifact {
      * @return the residual degrees of freedom
      * @since 0.1
      */
-    public int residualDf() {
+    public long residualDf() {
         return residualDf;
     }
 
@@ -400,7 +464,7 @@ public final class ModelArtifact {
      * @return the null degrees of freedom
      * @since 0.1
      */
-    public int nullDf() {
+    public long nullDf() {
         return nullDf;
     }
 
@@ -549,12 +613,12 @@ public final class ModelArtifact {
         d.put("method", dispersionMethod);
         model.put("dispersion", d);
         Map<String, Object> f = new LinkedHashMap<>();
-        f.put("rows", (long) rowCount);
-        f.put("droppedRows", (long) droppedRows);
+        f.put("rows", rowCount);
+        f.put("droppedRows", droppedRows);
         f.put("deviance", orNull(deviance));
         f.put("nullDeviance", orNull(nullDeviance));
-        f.put("residualDf", (long) residualDf);
-        f.put("nullDf", (long) nullDf);
+        f.put("residualDf", residualDf);
+        f.put("nullDf", nullDf);
         f.put("iterations", (long) iterations);
         f.put("converged", converged);
         f.put("logLikelihood", orNull(logLikelihood));
@@ -760,12 +824,12 @@ public final class ModelArtifact {
 
         String fp = "model.fit";
         Map<String, Object> f = JsonFields.object(m, "fit", path);
-        int rows = JsonFields.integer(f, "rows", fp, 0, MAX_COUNT);
-        int dropped = JsonFields.integer(f, "droppedRows", fp, 0, MAX_COUNT);
+        long rows = JsonFields.wholeNumber(f, "rows", fp, 0, MAX_ROWS);
+        long dropped = JsonFields.wholeNumber(f, "droppedRows", fp, 0, MAX_ROWS);
         double dev = JsonFields.numberOrNull(f, "deviance", fp);
         double nullDev = JsonFields.numberOrNull(f, "nullDeviance", fp);
-        int resDf = JsonFields.integer(f, "residualDf", fp, -MAX_COUNT, MAX_COUNT);
-        int nullDf = JsonFields.integer(f, "nullDf", fp, 0, MAX_COUNT);
+        long resDf = JsonFields.wholeNumber(f, "residualDf", fp, -MAX_ROWS, MAX_ROWS);
+        long nullDf = JsonFields.wholeNumber(f, "nullDf", fp, 0, MAX_ROWS);
         int iterations = JsonFields.integer(f, "iterations", fp, 0, MAX_COUNT);
         boolean converged = JsonFields.bool(f, "converged", fp);
         double ll = JsonFields.numberOrNull(f, "logLikelihood", fp);

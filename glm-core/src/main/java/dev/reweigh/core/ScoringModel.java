@@ -37,14 +37,23 @@ final class ScoringModel {
     }
 
     static ScoringModel of(FittedModel fit, double dispersion) {
-        DesignRecipe recipe = fit.recipe();
+        return of(fit.spec(), fit.recipe(), fit.columnNames(), fit.coefficients(), fit.unscaledCovariance(),
+                dispersion);
+    }
+
+    static ScoringModel of(StreamingFit fit, double dispersion) {
+        return of(fit.spec(), fit.recipe(), fit.columnNames(), fit.coefficients(), fit.unscaledCovariance(),
+                dispersion);
+    }
+
+    private static ScoringModel of(ModelSpec spec, DesignRecipe recipe, List<String> columnNames, double[] beta,
+            double[][] covariance, double dispersion) {
         List<ScoringTerm> terms = new ArrayList<>();
         for (DesignRecipe.Encoder e : recipe.encoders()) {
             terms.add(ScoringTerm.of(e));
         }
-        return new ScoringModel(fit.family(), fit.link(), recipe.hasIntercept(), terms, fit.columnNames(),
-                fit.coefficients(), fit.unscaledCovariance(), dispersion, fit.spec().offset().orElse(null),
-                fit.spec().logOffset().orElse(null));
+        return new ScoringModel(spec.family(), spec.link(), recipe.hasIntercept(), terms, columnNames, beta,
+                covariance, dispersion, spec.offset().orElse(null), spec.logOffset().orElse(null));
     }
 
     /**
@@ -70,5 +79,16 @@ final class ScoringModel {
             }
         }
         return s / fit.residualDf();
+    }
+
+    /** The same default for a streaming fit, from the Pearson statistic of its last pass. */
+    static double defaultDispersion(StreamingFit fit) {
+        if (fit.spec().family().isDispersionFixed()) {
+            return 1.0;
+        }
+        if (fit.residualDf() <= 0) {
+            return Double.NaN;
+        }
+        return fit.pearsonChiSquare() / fit.residualDf();
     }
 }

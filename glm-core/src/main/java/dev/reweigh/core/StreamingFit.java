@@ -21,6 +21,9 @@ public final class StreamingFit {
     private final double[][] covariance;
     private final double deviance;
     private final double nullDeviance;
+    private final double pearsonChiSquare;
+    private final double logLikelihood;
+    private final DesignRecipe recipe;
     private final long rowCount;
     private final long droppedRows;
     private final long positiveWeightRows;
@@ -30,13 +33,16 @@ public final class StreamingFit {
     private final List<String> warnings;
 
     // package-private: built by StreamingGlm only
-    StreamingFit(ModelSpec spec, FitOptions options, List<String> columnNames, double[] coefficients,
-            boolean[] aliased, double[][] covariance, double deviance, double nullDeviance, long rowCount,
-            long droppedRows, long positiveWeightRows, int iterations, int passes, boolean converged,
-            List<String> warnings) {
+    StreamingFit(ModelSpec spec, FitOptions options, DesignRecipe recipe, double[] coefficients,
+            boolean[] aliased, double[][] covariance, double deviance, double nullDeviance, double pearsonChiSquare,
+            double logLikelihood, long rowCount, long droppedRows, long positiveWeightRows, int iterations, int passes,
+            boolean converged, List<String> warnings) {
         this.spec = spec;
         this.options = options;
-        this.columnNames = List.copyOf(columnNames);
+        this.recipe = recipe;
+        this.columnNames = recipe.columnNames();
+        this.pearsonChiSquare = pearsonChiSquare;
+        this.logLikelihood = logLikelihood;
         this.coefficients = coefficients.clone();
         this.aliased = aliased.clone();
         this.covariance = new double[covariance.length][];
@@ -198,6 +204,28 @@ public final class StreamingFit {
      */
     public double nullDeviance() {
         return nullDeviance;
+    }
+
+    /**
+     * Returns the Pearson statistic at the final coefficients: the sum over the rows of
+     * w (y - mu)^2 / V(mu), gathered in the same pass as the deviance. Divided by
+     * {@link #residualDf()} it is the Pearson estimate of the dispersion, which is what
+     * {@link ModelArtifact#of(StreamingFit)} records for families with a free dispersion.
+     *
+     * @return the Pearson statistic
+     * @since 0.1
+     */
+    public double pearsonChiSquare() {
+        return pearsonChiSquare;
+    }
+
+    /** The log-likelihood at dispersion 1 for families that fix it, else NaN. */
+    double logLikelihoodAtUnitDispersion() {
+        return logLikelihood;
+    }
+
+    DesignRecipe recipe() {
+        return recipe;
     }
 
     /**

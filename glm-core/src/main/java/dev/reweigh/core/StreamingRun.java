@@ -34,6 +34,9 @@ final class StreamingRun {
     private final Link link;
     private final boolean identity;
     private final Map<String, List<String>> declared;
+    // a family that fixes the dispersion has its log-likelihood at dispersion 1: gathered in every pass
+    // (the accepted one is known only afterwards), so an artifact can record it without another pass
+    private final boolean trackLogLikelihood;
 
     // survey results
     private long usedRows;
@@ -74,6 +77,7 @@ final class StreamingRun {
         this.link = spec.link();
         this.identity = "identity".equals(link.name());
         this.declared = Map.copyOf(source.levels());
+        this.trackLogLikelihood = family.isDispersionFixed() && family.hasDensity();
     }
 
     /** Where a pass evaluates the model. */
@@ -102,9 +106,23 @@ final class StreamingRun {
         double devC;
         double nullS;
         double nullC;
+        double pearsonS;
+        double pearsonC;
+        double logLikS;
+        double logLikC;
+        boolean logLikValid = true;
 
         double deviance() {
             return devS + devC;
+        }
+
+        double pearson() {
+            return pearsonS + pearsonC;
+        }
+
+        /** The log-likelihood at dispersion 1, or NaN when the family has none or it is not tracked. */
+        double logLikelihood() {
+            return logLikValid ? logLikS + logLikC : Double.NaN;
         }
     }
 
@@ -132,6 +150,7 @@ final class StreamingRun {
         }
         columnSumSq = new double[p];
         Pass first = pass(point, accepted, true);
+        Pass acceptedPass = first;
         if (!first.valid) {
             throw new InvalidDataException("start coefficients", -1, "(vector)",
                     "coefficients giving linear predictors that are " + link.etaDomain() + " and means that are "
@@ -221,6 +240,7 @@ final class StreamingRun {
             GramPartial swap = accepted;
             accepted = candidate;
             candidate = swap;
+            acceptedPass = next;
             point = trial;
             dev = devNew;
             if (fromBeta || halvings == 0) {
@@ -263,8 +283,9 @@ final class StreamingRun {
             warnings.add(0, msg);
             LOG.log(Level.WARNING, msg);
         }
-        return new StreamingFit(resolved, options, recipe.columnNames(), coef, excluded, cov, dev, nullDeviance,
-                usedRows, droppedRows, positiveRows, iter, passes, converged, warnings);
+        return new StreamingFit(resolved, options, recipe, coef, excluded, cov, dev, nullDeviance,
+                acceptedPass.pearson(), acceptedPass.logLikelihood(), usedRows, droppedRows, positiveRows, iter, passes,
+                converged, warnings);
     }
 
     private void emit(int iter, double dev, int halvings, long t0) {
@@ -526,6 +547,15 @@ final class StreamingRun {
                 double t = out.devS + term;
                 out.devC += Math.abs(out.devS) >= Math.abs(term) ? (out.devS - t) + term : (term - t) + out.devS;
                 out.devS = t;
+                double r = fd.y[i] - mu[i];
+                double pt = pw * r * r / family.variance(mu[i]);
+                double ps = out.pearsonS + pt;
+                out.pearsonC += Math.abs(out.pearsonS) >= Math.abs(pt) ? (out.pearsonS - ps) + pt
+                        : (pt - ps) + out.pearsonS;
+                out.pearsonS = ps;
+                if (trackLogLikelihood && out.logLikValid) {
+                    addLogDensity(out, fd.y[i], mu[i], pw);
+                }
                 if (firstPass && Double.isFinite(nullMean)) {
                     double nt = pw * family.unitDeviance(fd.y[i], nullMean);
                     double s2 = out.nullS + nt;
@@ -540,6 +570,19 @@ final class StreamingRun {
             }
         });
         return out;
+    }
+
+    private void addLogDensity(Pass out, double y, double m, double pw) {
+        double lt;
+        try {
+            lt = family.logDensity(y, m, 1.0, pw);
+        } catch (ReweighException | IllegalArgumentException e) {
+            out.logLikValid = false;
+            return;
+        }
+        double ls = out.logLikS + lt;
+        out.logLikC += Math.abs(out.logLikS) >= Math.abs(lt) ? (out.logLikS - ls) + lt : (lt - ls) + out.logLikS;
+        out.logLikS = ls;
     }
 
     private void evaluate(Point point, DesignMatrix x, FitData fd, int n, Pass out) {
