@@ -27,7 +27,10 @@ abstract class ScoringTerm {
         return 1;
     }
 
-    abstract boolean isFactorPart(int k);
+    /** Whether part k is a factor block (parts are dense columns by default). */
+    boolean isFactorPart(int k) {
+        return false;
+    }
 
     /** Whether a dense part carries a low-order correction (none by default). */
     boolean hasLow(int k) {
@@ -39,8 +42,10 @@ abstract class ScoringTerm {
         return false;
     }
 
-    /** Number of model columns of part k (1 for a dense part). */
-    abstract long partWidth(int k);
+    /** Number of model columns of part k (1 for a dense part, the default). */
+    long partWidth(int k) {
+        return 1;
+    }
 
     abstract List<String> partNames(int k);
 
@@ -213,16 +218,6 @@ abstract class ScoringTerm {
         }
 
         @Override
-        boolean isFactorPart(int k) {
-            return false;
-        }
-
-        @Override
-        long partWidth(int k) {
-            return 1;
-        }
-
-        @Override
         List<String> partNames(int k) {
             return List.of(column);
         }
@@ -334,18 +329,8 @@ abstract class ScoringTerm {
         }
 
         @Override
-        boolean isFactorPart(int k) {
-            return false;
-        }
-
-        @Override
         boolean hasLow(int k) {
             return k > 0;
-        }
-
-        @Override
-        long partWidth(int k) {
-            return 1;
         }
 
         @Override
@@ -411,16 +396,6 @@ abstract class ScoringTerm {
         @Override
         int partCount() {
             return centres.length;
-        }
-
-        @Override
-        boolean isFactorPart(int k) {
-            return false;
-        }
-
-        @Override
-        long partWidth(int k) {
-            return 1;
         }
 
         @Override
