@@ -242,8 +242,7 @@ final class CompiledDesign {
                 pe += 0.0 * bk;
             }
             double t = sum + p;
-            double bb = t - sum;
-            err += (sum - (t - bb)) + (p - bb) + pe;
+            err += CompensatedSum.error(sum, p, t) + pe;
             sum = t;
         }
         for (int k = 0; k < denseSlot.length; k++) {
@@ -255,8 +254,7 @@ final class CompiledDesign {
                 pe += s.lo[denseSlot[k]] * bk;
             }
             double t = sum + p;
-            double bb = t - sum;
-            err += (sum - (t - bb)) + (p - bb) + pe;
+            err += CompensatedSum.error(sum, p, t) + pe;
             sum = t;
         }
         for (int k = 0; k < factorSlot.length; k++) {
@@ -267,8 +265,7 @@ final class CompiledDesign {
                 double p = v * bk;
                 double pe = Math.fma(v, bk, -p);
                 double t = sum + p;
-                double bb = t - sum;
-                err += (sum - (t - bb)) + (p - bb) + pe;
+                err += CompensatedSum.error(sum, p, t) + pe;
                 sum = t;
             }
         }

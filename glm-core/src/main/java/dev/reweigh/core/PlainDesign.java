@@ -66,6 +66,10 @@ final class PlainDesign {
         final double[] logOffset;
         final double[] sum = new double[BLOCK];
         final double[] err = new double[BLOCK];
+        // the block's inputs copied (numbers) or looked up (level coefficients) to index 0: every array
+        // a loop touches is then indexed alike, which lets the JIT vectorize the compensated sums
+        final double[] termA = new double[BLOCK];
+        final double[] termB = new double[BLOCK];
 
         private Columns(int dense, int factors, double[] offset, double[] logOffset) {
             this.dense = new double[dense][];
@@ -128,63 +132,72 @@ final class PlainDesign {
         double[] off = c.offset;
         double[] logOff = c.logOffset;
         // the row path starts from 0.0, sets the offset and adds the log-exposure; Math.log never
-        // returns -0.0, so 0.0 + log(x) is log(x) itself. The product 1.0 * b0 is exact, so the
-        // intercept's error term (+0.0) changes nothing and is left out; 0.0 + e keeps the row
-        // path's sign of a zero error. (The tests on null arrays are loop-invariant.)
-        double p = b[0];
-        for (int r = 0; r < len; r++) {
-            double s = off == null ? 0.0 : off[from + r];
-            if (logOff != null) {
-                s = off == null ? Math.log(logOff[from + r]) : s + Math.log(logOff[from + r]);
+        // returns -0.0, so 0.0 + log(x) is log(x) itself
+        if (off != null && logOff != null) {
+            for (int r = 0; r < len; r++) {
+                double o = off[from + r];
+                o += Math.log(logOff[from + r]);
+                sum[r] = o;
             }
-            if (intercept) {
-                double t = s + p;
-                double bb = t - s;
-                err[r] = 0.0 + ((s - (t - bb)) + (p - bb));
-                sum[r] = t;
-            } else {
-                err[r] = 0.0;
-                sum[r] = s;
+        } else if (off != null) {
+            System.arraycopy(off, from, sum, 0, len);
+        } else if (logOff != null) {
+            for (int r = 0; r < len; r++) {
+                sum[r] = Math.log(logOff[from + r]);
             }
+        } else {
+            java.util.Arrays.fill(sum, 0, len, 0.0);
         }
+        if (intercept) {
+            // the product 1.0 * b0 is exact, so its error term (+0.0) changes nothing and is left
+            // out; 0.0 + e keeps the row path's sign of a zero error
+            double p = b[0];
+            for (int r = 0; r < len; r++) {
+                double s = sum[r];
+                double t = s + p;
+                err[r] = 0.0 + CompensatedSum.error(s, p, t);
+                sum[r] = t;
+            }
+        } else {
+            java.util.Arrays.fill(err, 0, len, 0.0);
+        }
+        double[] qa = c.termA;
+        double[] qb = c.termB;
         int nd = denseInput.length;
         int k = 0;
         for (; k + 1 < nd; k += 2) {
-            double[] x1 = c.dense[k];
-            double[] x2 = c.dense[k + 1];
+            System.arraycopy(c.dense[k], from, qa, 0, len);
+            System.arraycopy(c.dense[k + 1], from, qb, 0, len);
             double b1 = b[denseColumn[k]];
             double b2 = b[denseColumn[k + 1]];
             for (int r = 0; r < len; r++) {
                 double s = sum[r];
                 double e = err[r];
-                double xv = x1[from + r];
+                double xv = qa[r];
                 double q = xv * b1;
                 double qe = Math.fma(xv, b1, -q);
                 double t = s + q;
-                double bb = t - s;
-                e += (s - (t - bb)) + (q - bb) + qe;
+                e += CompensatedSum.error(s, q, t) + qe;
                 s = t;
-                xv = x2[from + r];
+                xv = qb[r];
                 q = xv * b2;
                 qe = Math.fma(xv, b2, -q);
                 t = s + q;
-                bb = t - s;
-                e += (s - (t - bb)) + (q - bb) + qe;
+                e += CompensatedSum.error(s, q, t) + qe;
                 sum[r] = t;
                 err[r] = e;
             }
         }
         if (k < nd) {
-            double[] x = c.dense[k];
+            System.arraycopy(c.dense[k], from, qa, 0, len);
             double bk = b[denseColumn[k]];
             for (int r = 0; r < len; r++) {
-                double xv = x[from + r];
+                double xv = qa[r];
                 double q = xv * bk;
                 double qe = Math.fma(xv, bk, -q);
                 double s = sum[r];
                 double t = s + q;
-                double bb = t - s;
-                err[r] += (s - (t - bb)) + (q - bb) + qe;
+                err[r] += CompensatedSum.error(s, q, t) + qe;
                 sum[r] = t;
             }
         }
@@ -192,37 +205,38 @@ final class PlainDesign {
         int nf = factorInput.length;
         k = 0;
         for (; k + 1 < nf; k += 2) {
-            int[] codes1 = c.codes[k];
-            int[] codes2 = c.codes[k + 1];
-            double[] coef1 = c.levelCoefficient[k];
-            double[] coef2 = c.levelCoefficient[k + 1];
+            lookUp(c.codes[k], c.levelCoefficient[k], from, len, qa);
+            lookUp(c.codes[k + 1], c.levelCoefficient[k + 1], from, len, qb);
             for (int r = 0; r < len; r++) {
                 double s = sum[r];
                 double e = err[r];
-                double q = coef1[Math.max(codes1[from + r], -1) + 1];
+                double q = qa[r];
                 double t = s + q;
-                double bb = t - s;
-                e += (s - (t - bb)) + (q - bb);
+                e += CompensatedSum.error(s, q, t);
                 s = t;
-                q = coef2[Math.max(codes2[from + r], -1) + 1];
+                q = qb[r];
                 t = s + q;
-                bb = t - s;
-                e += (s - (t - bb)) + (q - bb);
+                e += CompensatedSum.error(s, q, t);
                 sum[r] = t;
                 err[r] = e;
             }
         }
         if (k < nf) {
-            int[] codes = c.codes[k];
-            double[] coef = c.levelCoefficient[k];
+            lookUp(c.codes[k], c.levelCoefficient[k], from, len, qa);
             for (int r = 0; r < len; r++) {
-                double q = coef[Math.max(codes[from + r], -1) + 1];
+                double q = qa[r];
                 double s = sum[r];
                 double t = s + q;
-                double bb = t - s;
-                err[r] += (s - (t - bb)) + (q - bb);
+                err[r] += CompensatedSum.error(s, q, t);
                 sum[r] = t;
             }
+        }
+    }
+
+    /** What each row of the block adds for one factor: its level's coefficient (-0.0, NaN: see bind). */
+    private static void lookUp(int[] codes, double[] levelCoefficient, int from, int len, double[] out) {
+        for (int r = 0; r < len; r++) {
+            out[r] = levelCoefficient[Math.max(codes[from + r], -1) + 1];
         }
     }
 }
