@@ -25,7 +25,7 @@ import java.util.Map;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-class ScoringProperties {
+class ScoringPropertiesTest {
     private static final Portfolio TRAIN = new Portfolio(500, 99);
     private static final Table DATA = TRAIN.table("claims", TRAIN.response("poisson", true));
     private static final Table FRESH = new Portfolio(200, 100).table("claims", null);
