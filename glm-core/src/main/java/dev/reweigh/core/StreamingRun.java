@@ -201,10 +201,7 @@ final class StreamingRun {
             while (true) {
                 trial = new Point(betaNew.clone(), fromBeta ? 1.0 : Math.scalb(1.0, -halvings));
                 next = pass(trial, candidate, false);
-                double devNew = next.deviance();
-                boolean ok = next.valid && Double.isFinite(devNew)
-                        && (!fromBeta || devNew <= dev + 1e-12 * (Math.abs(dev) + 1e-12));
-                if (ok) {
+                if (ConvergenceRule.keepsStep(next.valid, next.deviance(), dev, fromBeta)) {
                     break;
                 }
                 if (halvings >= options.maxStepHalvings()) {
@@ -219,9 +216,7 @@ final class StreamingRun {
                 }
             }
             if (exhausted) {
-                String msg = String.format(Locale.ROOT, "step-halving exhausted at iteration %d after %d halvings: no"
-                        + " step %s; the fit stopped at the previous coefficients", iter, halvings,
-                        fromBeta ? "lowered the deviance" : "kept the means in the family's domain");
+                String msg = ConvergenceRule.halvingExhausted(iter, halvings, fromBeta);
                 warnings.add(msg);
                 LOG.log(Level.WARNING, msg);
                 if (!fromBeta) {

@@ -4,6 +4,8 @@ package dev.reweigh.core.internal;
  * The convergence measures shared by the in-memory fit ({@link Irls}) and the streaming fit, so
  * that both stop by one rule: the relative change of the deviance and the largest change of a
  * coefficient, scaled by its column's root mean square, relative to the largest scaled coefficient.
+ * Both also keep or halve a step by one rule, {@link #keepsStep}, and say the same when halving
+ * runs out.
  */
 public final class ConvergenceRule {
     private ConvergenceRule() {
@@ -40,5 +42,35 @@ public final class ConvergenceRule {
             }
         }
         return num == 0 ? 0 : num / Math.max(den, Double.MIN_NORMAL);
+    }
+
+    /**
+     * Whether a trial step is kept: its means are valid, its deviance is finite and, when there
+     * are earlier coefficients to fall back to, the deviance did not rise beyond rounding.
+     *
+     * @param valid whether every linear predictor and mean of the step is in the link's and the
+     *     family's domain
+     * @param devNew the step's deviance
+     * @param dev the deviance before the step
+     * @param mustNotRise whether a rise of the deviance rejects the step
+     * @return true to keep the step, false to halve it
+     */
+    public static boolean keepsStep(boolean valid, double devNew, double dev, boolean mustNotRise) {
+        return valid && Double.isFinite(devNew) && (!mustNotRise || devNew <= dev + 1e-12 * (Math.abs(dev) + 1e-12));
+    }
+
+    /**
+     * The warning of a fit whose step-halving ran out.
+     *
+     * @param iteration the iteration
+     * @param halvings the halvings tried
+     * @param fromCoefficients whether the step started from earlier coefficients (else from the
+     *     starting means)
+     * @return the message
+     */
+    public static String halvingExhausted(int iteration, int halvings, boolean fromCoefficients) {
+        return String.format(java.util.Locale.ROOT, "step-halving exhausted at iteration %d after %d halvings: no step"
+                + " %s; the fit stopped at the previous coefficients", iteration, halvings,
+                fromCoefficients ? "lowered the deviance" : "kept the means in the family's domain");
     }
 }

@@ -190,9 +190,7 @@ public final class Irls {
                 }
                 boolean valid = means(etaNew, muNew);
                 devNew = valid ? deviance(muNew) : Double.NaN;
-                boolean ok = valid && Double.isFinite(devNew)
-                        && (!devCheck || devNew <= dev + 1e-12 * (Math.abs(dev) + 1e-12));
-                if (ok) {
+                if (ConvergenceRule.keepsStep(valid, devNew, dev, devCheck)) {
                     break;
                 }
                 if (halvings >= options.maxStepHalvings()) {
@@ -214,10 +212,7 @@ public final class Irls {
                 }
             }
             if (exhausted) {
-                String msg = String.format(Locale.ROOT,
-                        "step-halving exhausted at iteration %d after %d halvings: no step %s; the fit stopped at the"
-                                + " previous coefficients", iter, halvings,
-                        fromBeta ? "lowered the deviance" : "kept the means in the family's domain");
+                String msg = ConvergenceRule.halvingExhausted(iter, halvings, fromBeta);
                 warnings.add(msg);
                 LOG.log(Level.WARNING, msg);
                 if (!fromBeta) {
