@@ -45,8 +45,7 @@ final class StreamingRun {
     private double sumW;
     private double sumWy;
     private boolean anyOffset;
-    private double nullDevS;
-    private double nullDevC;
+    private final RunningSum nullDev = new RunningSum();
     private boolean nullValid = true;
     private final Map<String, double[]> levelWeights = new HashMap<>();
     private Table firstChunk;
@@ -102,27 +101,35 @@ final class StreamingRun {
     /** The outcome of one pass. */
     private static final class Pass {
         boolean valid = true;
-        double devS;
-        double devC;
-        double nullS;
-        double nullC;
-        double pearsonS;
-        double pearsonC;
-        double logLikS;
-        double logLikC;
+        final RunningSum dev = new RunningSum();
+        final RunningSum nullDev = new RunningSum();
+        final RunningSum pearson = new RunningSum();
+        final RunningSum logLik = new RunningSum();
         boolean logLikValid = true;
 
         double deviance() {
-            return devS + devC;
-        }
-
-        double pearson() {
-            return pearsonS + pearsonC;
+            return dev.value();
         }
 
         /** The log-likelihood at dispersion 1, or NaN when the family has none or it is not tracked. */
         double logLikelihood() {
-            return logLikValid ? logLikS + logLikC : Double.NaN;
+            return logLikValid ? logLik.value() : Double.NaN;
+        }
+    }
+
+    /** A sum over many rows with its rounding errors carried alongside (Neumaier's compensation). */
+    private static final class RunningSum {
+        private double sum;
+        private double compensation;
+
+        void add(double term) {
+            double t = sum + term;
+            compensation += Math.abs(sum) >= Math.abs(term) ? (sum - t) + term : (term - t) + sum;
+            sum = t;
+        }
+
+        double value() {
+            return sum + compensation;
         }
     }
 
@@ -279,7 +286,7 @@ final class StreamingRun {
             LOG.log(Level.WARNING, msg);
         }
         return new StreamingFit(resolved, options, recipe, coef, excluded, cov, dev, nullDeviance,
-                acceptedPass.pearson(), acceptedPass.logLikelihood(), usedRows, droppedRows, positiveRows, iter, passes,
+                acceptedPass.pearson.value(), acceptedPass.logLikelihood(), usedRows, droppedRows, positiveRows, iter, passes,
                 converged, warnings);
     }
 
@@ -294,7 +301,7 @@ final class StreamingRun {
                         + " family's domain; the null deviance is not available");
                 return Double.NaN;
             }
-            return nullDevS + nullDevC;
+            return nullDev.value();
         }
         if (anyOffset) {
             warnings.add("the intercept-only deviance is not computed by a streaming fit when the model has an"
@@ -305,7 +312,7 @@ final class StreamingRun {
             warnings.add("the intercept-only mean is outside the family's domain; the null deviance is not available");
             return Double.NaN;
         }
-        return first.nullS + first.nullC;
+        return first.nullDev.value();
     }
 
     // ---------------------------------------------------------------- survey pass
@@ -351,9 +358,7 @@ final class StreamingRun {
                         nullValid = false;
                     } else {
                         double term = pw * family.unitDeviance(fd.y[i], m);
-                        double t = nullDevS + term;
-                        nullDevC += Math.abs(nullDevS) >= Math.abs(term) ? (nullDevS - t) + term : (term - t) + nullDevS;
-                        nullDevS = t;
+                        nullDev.add(term);
                     }
                 }
             }
@@ -539,23 +544,15 @@ final class StreamingRun {
                     continue;
                 }
                 double term = pw * family.unitDeviance(fd.y[i], mu[i]);
-                double t = out.devS + term;
-                out.devC += Math.abs(out.devS) >= Math.abs(term) ? (out.devS - t) + term : (term - t) + out.devS;
-                out.devS = t;
+                out.dev.add(term);
                 double r = fd.y[i] - mu[i];
-                double pt = pw * r * r / family.variance(mu[i]);
-                double ps = out.pearsonS + pt;
-                out.pearsonC += Math.abs(out.pearsonS) >= Math.abs(pt) ? (out.pearsonS - ps) + pt
-                        : (pt - ps) + out.pearsonS;
-                out.pearsonS = ps;
+                out.pearson.add(pw * r * r / family.variance(mu[i]));
                 if (trackLogLikelihood && out.logLikValid) {
                     addLogDensity(out, fd.y[i], mu[i], pw);
                 }
                 if (firstPass && Double.isFinite(nullMean)) {
                     double nt = pw * family.unitDeviance(fd.y[i], nullMean);
-                    double s2 = out.nullS + nt;
-                    out.nullC += Math.abs(out.nullS) >= Math.abs(nt) ? (out.nullS - s2) + nt : (nt - s2) + out.nullS;
-                    out.nullS = s2;
+                    out.nullDev.add(nt);
                 }
             }
             workingValues(fd, n);
@@ -575,9 +572,7 @@ final class StreamingRun {
             out.logLikValid = false;
             return;
         }
-        double ls = out.logLikS + lt;
-        out.logLikC += Math.abs(out.logLikS) >= Math.abs(lt) ? (out.logLikS - ls) + lt : (lt - ls) + out.logLikS;
-        out.logLikS = ls;
+        out.logLik.add(lt);
     }
 
     private void evaluate(Point point, DesignMatrix x, FitData fd, int n, Pass out) {
