@@ -23,13 +23,14 @@ public final class DemoResult {
     private final LikelihoodRatioTest severityWithoutAge;
     private final LikelihoodRatioTest frequencyWithoutRegion;
     private final FittedModel tweedie;
+    private final double tweedieProfilePower;
     private final List<Recovery> recoveries;
     private final List<Path> files;
 
     DemoResult(MotorPortfolio portfolio, FittedModel frequency, NegativeBinomialTheta negativeBinomial,
                FittedModel severity, List<DispersionEstimate> severityDispersions,
                LikelihoodRatioTest severityWithoutAge, LikelihoodRatioTest frequencyWithoutRegion,
-               FittedModel tweedie, List<Recovery> recoveries, List<Path> files) {
+               FittedModel tweedie, double tweedieProfilePower, List<Recovery> recoveries, List<Path> files) {
         this.portfolio = portfolio;
         this.frequency = frequency;
         this.negativeBinomial = negativeBinomial;
@@ -38,6 +39,7 @@ public final class DemoResult {
         this.severityWithoutAge = severityWithoutAge;
         this.frequencyWithoutRegion = frequencyWithoutRegion;
         this.tweedie = tweedie;
+        this.tweedieProfilePower = tweedieProfilePower;
         this.recoveries = List.copyOf(recoveries);
         this.files = List.copyOf(files);
     }
@@ -120,6 +122,17 @@ public final class DemoResult {
      */
     public FittedModel tweedie() {
         return tweedie;
+    }
+
+    /**
+     * Returns the Tweedie power at the maximum of its profile likelihood, the check on the power
+     * the pure-premium model takes from the severity shape.
+     *
+     * @return the power
+     * @since 0.1
+     */
+    public double tweedieProfilePower() {
+        return tweedieProfilePower;
     }
 
     /**

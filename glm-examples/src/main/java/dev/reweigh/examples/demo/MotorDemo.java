@@ -23,6 +23,7 @@ import dev.reweigh.inference.NegativeBinomialTheta;
 import dev.reweigh.inference.Prediction;
 import dev.reweigh.inference.PredictionTable;
 import dev.reweigh.inference.ReferenceDistribution;
+import dev.reweigh.inference.TweediePowerProfile;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
@@ -71,6 +72,7 @@ public final class MotorDemo {
     private final DemoSettings settings;
     private final PrintWriter out;
     private final TrueModel truth = TrueModel.standard();
+    private double tweedieProfilePower = Double.NaN; // set by the pure-premium step
 
     private MotorDemo(DemoSettings settings, PrintWriter out) {
         this.settings = settings;
@@ -175,7 +177,7 @@ public final class MotorDemo {
         out.printf(Locale.ROOT, "demo finished in %.1f s%n", (System.nanoTime() - started) / 1e9);
         out.flush();
         return new DemoResult(portfolio, poisson, nb, gammaLog, dispersions, sevAge, freqRegion, tweedie,
-                recoveries, files);
+                tweedieProfilePower, recoveries, files);
     }
 
     private void introduce(MotorPortfolio portfolio) {
@@ -378,6 +380,12 @@ public final class MotorDemo {
                         + " (true %s); %s after %d iterations%n", fixed(tweediePower, 3), fixed(shape, 3),
                 fixed((truth.severityShape() + 2) / (truth.severityShape() + 1), 3),
                 tweedie.converged() ? "converged" : "NOT converged", tweedie.iterations());
+        // the shortcut checked against the power's own profile likelihood (a refit and a maximum-likelihood
+        // dispersion per power; a few seconds on this portfolio)
+        TweediePowerProfile profile = TweediePowerProfile.of(tweedie, 1.1, 1.9, 5);
+        tweedieProfilePower = profile.power();
+        out.printf(Locale.ROOT, "  check: the profile likelihood of the power over [1.1, 1.9] peaks at p = %s%n",
+                fixed(profile.power(), 3));
         out.println("  vehicle power relativities: frequency x severity against the one Tweedie model");
         TextGrid rel = new TextGrid("power group", "freq x sev", "Tweedie", "true");
         CoefficientTable fc = frequency.coefficients();

@@ -68,6 +68,20 @@ class MotorDemoTest {
     }
 
     @Test
+    void theTweediePowerFromTheShapeAgreesWithItsProfileLikelihood() {
+        // A Poisson number of Gamma(k) amounts is Tweedie with p = (k + 2) / (k + 1) (common practice, no
+        // source): the profile's maximum should sit near the simulated p and near the shortcut from the
+        // estimated shape; 0.03 is a loose allowance for 100,000 policies (common practice, no source).
+        TrueModel truth = result.portfolio().truth();
+        double trueP = (truth.severityShape() + 2) / (truth.severityShape() + 1);
+        double profileP = result.tweedieProfilePower();
+        assertEquals(trueP, profileP, 0.03, "profile power against the simulated power");
+        String family = result.tweedie().family().name();
+        double shortcutP = Double.parseDouble(family.substring(family.indexOf(':') + 1));
+        assertEquals(shortcutP, profileP, 0.03, "profile power against the shape shortcut " + family);
+    }
+
+    @Test
     void likelihoodRatioTestsTellARealFactorFromANullOne() {
         // Region moves frequency by up to 30% in the simulation; age has no effect on severity.
         assertTrue(result.frequencyWithoutRegion().pValue() < 1e-4, "region needed for frequency");
@@ -88,7 +102,7 @@ class MotorDemoTest {
         for (String s : List.of("== 1. Claim frequency", "== 2. Average claim amount", "== 3. Severity dispersion",
                 "== 4. Does a rating factor", "== 5. Relativities", "== 6. True simulated parameters", "== 7. Files",
                 "== 8. Cautions", "Gamma, identity link", "Gaussian, log link", "inverse Gaussian, log link",
-                "maximum likelihood", "Tweedie", "pure premium")) {
+                "maximum likelihood", "Tweedie", "pure premium", "profile likelihood of the power")) {
             assertTrue(report.contains(s), () -> "report contains '" + s + "'");
         }
         int cautions = report.indexOf("== 8. Cautions");
