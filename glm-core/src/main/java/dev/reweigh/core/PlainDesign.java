@@ -5,9 +5,10 @@ import java.util.List;
 /**
  * The linear predictor of a design made only of plain numeric and factor terms, for the rows of a
  * table, computed a block of rows at a time with the term loop outside and the row loop inside.
- * Each row still sees exactly the operations of {@link CompiledDesign#eta} in the same order
- * (offset, intercept, dense columns, factor blocks, each in a compensated sum), so the results
- * are bit-identical; what goes is the per-row dispatch over term nodes and bound inputs.
+ * Each row still sees the operations of {@link CompiledDesign#eta} in the same order (offset,
+ * intercept, dense columns, factor blocks, each through {@link CompensatedSum}), less the product
+ * error terms that are exactly +0.0 (1.0 times a coefficient), so the results are bit-identical;
+ * what goes is the per-row dispatch over term nodes and bound inputs.
  *
  * <p>Cells are not checked here: any missing or invalid value or unseen level makes its row's
  * linear predictor non-finite, and from such a row on the caller scores the block row by row,

@@ -62,11 +62,8 @@ final class ScoringModel {
      * degrees of freedom), NaN when there are no residual degrees of freedom.
      */
     static double defaultDispersion(FittedModel fit) {
-        if (fit.family().isDispersionFixed()) {
-            return 1.0;
-        }
-        if (fit.residualDf() <= 0) {
-            return Double.NaN;
+        if (fit.family().isDispersionFixed() || fit.residualDf() <= 0) {
+            return fromPearson(fit.family(), 0.0, fit.residualDf());
         }
         double[] y = fit.response();
         double[] mu = fit.fittedValues();
@@ -78,17 +75,18 @@ final class ScoringModel {
                 s += w[i] * r * r / fit.family().variance(mu[i]);
             }
         }
-        return s / fit.residualDf();
+        return fromPearson(fit.family(), s, fit.residualDf());
     }
 
     /** The same default for a streaming fit, from the Pearson statistic of its last pass. */
     static double defaultDispersion(StreamingFit fit) {
-        if (fit.spec().family().isDispersionFixed()) {
+        return fromPearson(fit.spec().family(), fit.pearsonChiSquare(), fit.residualDf());
+    }
+
+    private static double fromPearson(Family family, double pearson, long residualDf) {
+        if (family.isDispersionFixed()) {
             return 1.0;
         }
-        if (fit.residualDf() <= 0) {
-            return Double.NaN;
-        }
-        return fit.pearsonChiSquare() / fit.residualDf();
+        return residualDf <= 0 ? Double.NaN : pearson / residualDf;
     }
 }

@@ -217,9 +217,7 @@ final class StreamingRun {
                 }
                 halvings++;
                 if (fromBeta) {
-                    for (int j = 0; j < p; j++) {
-                        betaNew[j] = 0.5 * (beta[j] + betaNew[j]);
-                    }
+                    ConvergenceRule.halveTowards(beta, betaNew);
                 }
             }
             if (exhausted) {
@@ -235,10 +233,8 @@ final class StreamingRun {
                 break;
             }
             double devNew = next.deviance();
-            double devChange = ConvergenceRule.devianceChange(devNew, dev);
-            double coefChange = fromBeta
-                    ? ConvergenceRule.coefficientChange(betaNew, beta, rms, excluded)
-                    : Double.POSITIVE_INFINITY;
+            boolean done = ConvergenceRule.hasConverged(devNew, dev, betaNew, beta, rms, excluded,
+                    options.tolerance());
             GramPartial swap = accepted;
             accepted = candidate;
             candidate = swap;
@@ -249,7 +245,7 @@ final class StreamingRun {
                 beta = betaNew.clone();
             }
             emit(iter, dev, halvings, t0);
-            if (devChange < options.tolerance() && coefChange < options.tolerance()) {
+            if (done) {
                 converged = true;
                 break;
             }

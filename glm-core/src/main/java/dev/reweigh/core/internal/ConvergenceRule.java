@@ -73,4 +73,37 @@ public final class ConvergenceRule {
                 + " %s; the fit stopped at the previous coefficients", iteration, halvings,
                 fromCoefficients ? "lowered the deviance" : "kept the means in the family's domain");
     }
+
+    /**
+     * Whether a kept step ends the fit: both the deviance change and the scaled coefficient
+     * change are below the tolerance. A step from the starting means (no earlier coefficients)
+     * never does.
+     *
+     * @param devNew the deviance after the step
+     * @param dev the deviance before it
+     * @param betaNew coefficients after the step
+     * @param beta coefficients before it, or null when the step started from the starting means
+     * @param columnRms root mean square of each column
+     * @param excluded columns left out (aliased or held)
+     * @param tolerance the fit's tolerance
+     * @return true when the fit has converged
+     */
+    public static boolean hasConverged(double devNew, double dev, double[] betaNew, double[] beta,
+            double[] columnRms, boolean[] excluded, double tolerance) {
+        return beta != null && devianceChange(devNew, dev) < tolerance
+                && coefficientChange(betaNew, beta, columnRms, excluded) < tolerance;
+    }
+
+    /**
+     * Halves a rejected step: moves each coefficient half way back towards its value in
+     * {@code base}.
+     *
+     * @param base the coefficients the step started from
+     * @param betaNew the step's coefficients, overwritten
+     */
+    public static void halveTowards(double[] base, double[] betaNew) {
+        for (int j = 0; j < betaNew.length; j++) {
+            betaNew[j] = 0.5 * (base[j] + betaNew[j]);
+        }
+    }
 }

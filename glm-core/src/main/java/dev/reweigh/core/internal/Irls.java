@@ -175,7 +175,6 @@ public final class Irls {
             int halvings = 0;
             boolean fromBeta = beta != null;
             double[] base = beta;
-            boolean devCheck = fromBeta;
             double[] etaTarget = null;
             double devNew;
             boolean exhausted = false;
@@ -190,7 +189,7 @@ public final class Irls {
                 }
                 boolean valid = means(etaNew, muNew);
                 devNew = valid ? deviance(muNew) : Double.NaN;
-                if (ConvergenceRule.keepsStep(valid, devNew, dev, devCheck)) {
+                if (ConvergenceRule.keepsStep(valid, devNew, dev, fromBeta)) {
                     break;
                 }
                 if (halvings >= options.maxStepHalvings()) {
@@ -206,9 +205,7 @@ public final class Irls {
                 }
                 halvings++;
                 if (base != null) {
-                    for (int j = 0; j < p; j++) {
-                        betaNew[j] = 0.5 * (base[j] + betaNew[j]);
-                    }
+                    ConvergenceRule.halveTowards(base, betaNew);
                 }
             }
             if (exhausted) {
@@ -224,10 +221,8 @@ public final class Irls {
                 emit(iter, dev, halvings, t0);
                 break;
             }
-            double devChange = ConvergenceRule.devianceChange(devNew, dev);
-            double coefChange = fromBeta
-                    ? ConvergenceRule.coefficientChange(betaNew, beta, columnRms, excluded)
-                    : Double.POSITIVE_INFINITY;
+            boolean done = ConvergenceRule.hasConverged(devNew, dev, betaNew, beta, columnRms,
+                    excluded, options.tolerance());
             boolean haveCoefficients = base != null || halvings == 0;
             System.arraycopy(etaNew, 0, eta, 0, n);
             System.arraycopy(muNew, 0, mu, 0, n);
@@ -240,7 +235,7 @@ public final class Irls {
                 LOG.log(Level.DEBUG, String.format(Locale.ROOT, "iteration %d: deviance %.12g, %d halvings, route %s",
                         iter, dev, halvings, accurate ? "QR" : "Cholesky"));
             }
-            if (devChange < options.tolerance() && coefChange < options.tolerance()) {
+            if (done) {
                 converged = true;
                 break;
             }
